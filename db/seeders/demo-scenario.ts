@@ -1,0 +1,84 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import bcrypt from 'bcryptjs';
+import demo from './demo-sign-ins.json';
+
+// An invented scenario: every person, company and place here is fictional.
+
+// Sign-ins and device secrets live in JSON so the start script (plain Node) can print and use them.
+/** Password of every demo account (development only). */
+export const DEMO_PASSWORD: string = demo.password;
+/** The demo sign-ins, printed by `npm start`. */
+export const DEMO_USERS = demo.users;
+/** Demo battery monitors with their MQTT secrets, which the simulator uses. */
+export const DEMO_DEVICES = demo.devices as {
+  id: string;
+  secret: string;
+  system: 'van' | 'cabin';
+  scenario: string;
+}[];
+
+const COMPANY_NAME = 'Kestrel Hollow Vanfitters';
+const SYSTEMS = {
+  van: {
+    name: 'Winter van “Moth”',
+    kind: 'van',
+    chemistry: 'lifepo4',
+    nominalVoltage: 12,
+    rated: 200,
+    usable: 190,
+    bms: 150,
+  },
+  cabin: {
+    name: 'Lakeside cabin',
+    kind: 'cabin',
+    chemistry: 'lifepo4',
+    nominalVoltage: 24,
+    rated: 280,
+    usable: 260,
+    bms: 200,
+  },
+} as const;
+
+/** Loads the demo scenario once; a second run finds it and changes nothing. */
+export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
+  const existing = await sequelize.query('SELECT 1 FROM users WHERE email = :email', {
+    replacements: { email: DEMO_USERS[0].email },
+    type: QueryTypes.SELECT,
+  });
+  if (existing.length > 0) return false;
+  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
+  await sequelize.transaction(async (transaction) => {
+    const q = <T extends object>(sql: string, replacements: Record<string, unknown>) =>
+      sequelize.query<T>(sql, { replacements, transaction, type: QueryTypes.SELECT });
+    const [company] = await q<{ id: string }>('INSERT INTO companies (name) VALUES (:name) RETURNING id', {
+      name: COMPANY_NAME,
+    });
+    const userIds: Record<string, string> = {};
+    for (const user of DEMO_USERS) {
+      const [row] = await q<{ id: string }>(
+        `INSERT INTO users (email, display_name, password_hash, roles, company_id)
+         VALUES (:email, :displayName, :passwordHash, ARRAY[:roles]::text[], :companyId) RETURNING id`,
+        { ...user, roles: user.roles, passwordHash, companyId: user.company ? company.id : null },
+      );
+      userIds[user.email] = row.id;
+    }
+    for (const device of DEMO_DEVICES) {
+      const system = SYSTEMS[device.system];
+      const [row] = await q<{ id: string }>(
+        `INSERT INTO systems (name, kind, chemistry, nominal_voltage, rated_capacity_ah, usable_capacity_ah,
+           bms_continuous_discharge_a, owner_id, installer_company_id)
+         VALUES (:name, :kind, :chemistry, :nominalVoltage, :rated, :usable, :bms, :ownerId, :companyId) RETURNING id`,
+        { ...system, ownerId: userIds[DEMO_USERS[0].email], companyId: company.id },
+      );
+      await q(
+        'INSERT INTO devices (id, system_id, secret_hash) VALUES (:id, :systemId, :secretHash) RETURNING id',
+        {
+          id: device.id,
+          systemId: row.id,
+          secretHash: await bcrypt.hash(device.secret, 10),
+        },
+      );
+    }
+  });
+  return true;
+}

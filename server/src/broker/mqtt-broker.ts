@@ -1,0 +1,36 @@
+import { Aedes } from 'aedes';
+import { createServer, type AddressInfo, type Server } from 'node:net';
+import type { Logger } from '../logger';
+import type { createBrokerPolicy } from './broker-policy';
+
+/** The embedded MQTT broker on a TCP listener. Persistence and emitter stay aedes' in-memory defaults. */
+export interface MqttBroker {
+  port: number;
+  close(): Promise<void>;
+}
+
+/** Starts aedes with the policy hooks on host:port (port 0 takes a free one). */
+export async function startMqttBroker(options: {
+  host: string;
+  port: number;
+  policy: ReturnType<typeof createBrokerPolicy>;
+  logger: Logger;
+}): Promise<MqttBroker> {
+  const broker = await Aedes.createBroker({ ...options.policy, heartbeatInterval: 30000 });
+  broker.on('clientError', (client, error) =>
+    options.logger.debug('mqtt client error', { clientId: client.id, error: error.message }),
+  );
+  const server: Server = createServer(broker.handle);
+  server.on('error', (error) => options.logger.error('mqtt listener error', { error: error.message }));
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(options.port, options.host, () => resolve());
+  });
+  return {
+    port: (server.address() as AddressInfo).port,
+    async close() {
+      await new Promise<void>((resolve) => broker.close(() => resolve()));
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+    },
+  };
+}

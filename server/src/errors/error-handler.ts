@@ -1,0 +1,34 @@
+import type { ErrorRequestHandler } from 'express';
+import { ZodError } from 'zod';
+import { AppError } from './app-error';
+import type { Logger } from '../logger';
+
+/** The one place errors become HTTP answers: `{ error: { code, message, field } }`. */
+export function createErrorHandler(logger: Logger): ErrorRequestHandler {
+  return (error, _req, res, _next) => {
+    const answer = toAppError(error);
+    if (answer.status >= 500)
+      logger.error('request failed', { code: answer.code, error: String(error?.stack ?? error) });
+    res
+      .status(answer.status)
+      .json({ error: { code: answer.code, message: answer.message, field: answer.field } });
+  };
+}
+
+function toAppError(error: unknown): AppError {
+  if (error instanceof AppError) return error;
+  if (error instanceof ZodError) {
+    const issue = error.issues[0];
+    const field = issue.path.join('.') || undefined;
+    return new AppError('invalid_input', 400, field ? `${field}: ${issue.message}` : issue.message, field);
+  }
+  const bodyError = error as { type?: string; status?: number; message?: string };
+  if (bodyError?.type === 'entity.parse.failed')
+    return new AppError('malformed_json', 400, 'Request body is not valid JSON');
+  if (bodyError?.type === 'entity.too.large')
+    return new AppError('payload_too_large', 413, 'Request body is too large');
+  if (typeof bodyError?.status === 'number' && bodyError.status >= 400 && bodyError.status < 500) {
+    return new AppError('bad_request', bodyError.status, bodyError.message ?? 'Bad request');
+  }
+  return new AppError('internal_error', 500, 'Something went wrong on our side');
+}

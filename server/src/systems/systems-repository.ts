@@ -1,0 +1,74 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { BatteryReading } from '@cellwarden/shared';
+
+/** A battery system with its latest reading, as the API shows it. */
+export interface SystemSummary {
+  id: string;
+  name: string;
+  kind: 'van' | 'cabin' | 'boat';
+  chemistry: 'lifepo4' | 'agm' | 'flooded';
+  nominalVoltage: 12 | 24 | 48;
+  ratedCapacityAh: number;
+  usableCapacityAh: number;
+  ownerId: string;
+  installerCompanyId: string | null;
+  latestReading: (BatteryReading & { receivedAt: number }) | null;
+}
+
+/** Which systems a caller may list: their own, and those of the company they work for. */
+export interface Visibility {
+  userId: string;
+  companyId: string | null;
+  seesCompanySystems: boolean;
+}
+
+const SELECT_SYSTEM = `
+  SELECT s.id, s.name, s.kind, s.chemistry, s.nominal_voltage AS "nominalVoltage",
+    s.rated_capacity_ah AS "ratedCapacityAh", s.usable_capacity_ah AS "usableCapacityAh",
+    s.owner_id AS "ownerId", s.installer_company_id AS "installerCompanyId",
+    CASE WHEN r.measured_at IS NULL THEN NULL ELSE json_build_object(
+      'measuredAt', (extract(epoch FROM r.measured_at) * 1000)::bigint,
+      'receivedAt', (extract(epoch FROM r.received_at) * 1000)::bigint,
+      'voltage', r.voltage, 'current', r.current, 'temperature', r.temperature,
+      'stateOfCharge', r.state_of_charge, 'power', r.power, 'sourceCurrents', r.source_currents) END AS "latestReading"
+  FROM systems s
+  LEFT JOIN LATERAL (
+    SELECT * FROM readings WHERE system_id = s.id ORDER BY measured_at DESC LIMIT 1
+  ) r ON true`;
+
+function stripNulls(summary: SystemSummary): SystemSummary {
+  const reading = summary.latestReading as Record<string, unknown> | null;
+  if (reading) for (const key of Object.keys(reading)) if (reading[key] === null) delete reading[key];
+  return summary;
+}
+
+/** Data access for systems. */
+export function createSystemsRepository(sequelize: Sequelize) {
+  return {
+    async listVisible(visibility: Visibility): Promise<SystemSummary[]> {
+      const rows = await sequelize.query<SystemSummary>(
+        `${SELECT_SYSTEM} WHERE s.owner_id = :userId
+           OR (:seesCompany AND s.installer_company_id IS NOT NULL AND s.installer_company_id = :companyId)
+         ORDER BY s.name`,
+        {
+          replacements: {
+            userId: visibility.userId,
+            companyId: visibility.companyId ?? '00000000-0000-0000-0000-000000000000',
+            seesCompany: visibility.seesCompanySystems,
+          },
+          type: QueryTypes.SELECT,
+        },
+      );
+      return rows.map(stripNulls);
+    },
+    async findById(id: string): Promise<SystemSummary | undefined> {
+      const rows = await sequelize.query<SystemSummary>(`${SELECT_SYSTEM} WHERE s.id = :id`, {
+        replacements: { id },
+        type: QueryTypes.SELECT,
+      });
+      return rows[0] && stripNulls(rows[0]);
+    },
+  };
+}
+
+export type SystemsRepository = ReturnType<typeof createSystemsRepository>;

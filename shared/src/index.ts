@@ -1,0 +1,36 @@
+// The curated public surface of Cellwarden's domain library. Pure TypeScript: no I/O, no frameworks.
+export type { BatteryReading } from './telemetry/reading';
+export { TOPIC_ROOT, readingsTopic, deviceIdFromReadingsTopic } from './telemetry/topics';
+export type { Chemistry, ChemistryProfile } from './battery/chemistry-profile';
+export { CHEMISTRY_PROFILES } from './battery/chemistry-profile';
+export { interpolateTable } from './battery/interpolate-table';
+export {
+  openCircuitVoltage,
+  capacityFactor,
+  peukertRuntimeHours,
+  peukertEffectiveCurrent,
+  cRate,
+  wattHours,
+} from './battery/battery-math';
+export { TelemetryInputError } from './telemetry/telemetry-input-error';
+export type { ReadingValidationErrorCode } from './telemetry/reading-validation';
+export {
+  ReadingValidationError,
+  validateReading,
+  VOLTAGE_RANGE_V,
+  CURRENT_RANGE_A,
+  TEMPERATURE_RANGE_C,
+  STATE_OF_CHARGE_RANGE_PERCENT,
+  POWER_RANGE_W,
+  MAX_FUTURE_SKEW_MS,
+  MAX_READING_AGE_MS,
+} from './telemetry/reading-validation';
+export type { SenmlRecord, ResolvedSenmlRecord } from './senml/senml-record';
+export { SENML_VERSION, RELATIVE_TIME_LIMIT } from './senml/senml-record';
+export type { SenmlErrorCode } from './senml/senml-error';
+export { SenmlError } from './senml/senml-error';
+export { isSenmlName } from './senml/senml-name';
+export { checkPack } from './senml/check-pack';
+export { resolvePack } from './senml/resolve-pack';
+export { MAX_READING_PAYLOAD_BYTES } from './senml/reading-measurement';
+export { encodeReadingPack, decodeReadingPack, parseReadingPayload } from './senml/reading-pack';

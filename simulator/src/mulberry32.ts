@@ -1,0 +1,14 @@
+/** A seeded random source: each call returns a number in [0, 1). */
+export type Rng = () => number;
+
+/** Mulberry32, a small 32-bit generator: the same seed always yields the same sequence. */
+export function mulberry32(seed: number): Rng {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}

@@ -1,0 +1,34 @@
+import { loadConfig } from '../../server/src/config';
+import { startServer, type RunningServer } from '../../server/src/compose-server';
+import { connectDatabase } from '../../server/src/database/connect-database';
+import { createMemoryLogger } from '../../server/src/logger';
+import { seedDemoScenario } from '../../db/seeders/demo-scenario';
+import { createTestDatabase } from './test-database';
+
+/** A real Cellwarden node on free ports against its own database, with the demo scenario loaded. */
+export async function startTestServer(options: { webDist?: string } = {}) {
+  const database = await createTestDatabase();
+  const seeding = connectDatabase(database.url);
+  await seedDemoScenario(seeding);
+  const logger = createMemoryLogger();
+  const config = loadConfig({
+    DATABASE_URL: database.url,
+    PORT: '0',
+    MQTT_PORT: '0',
+    WEB_DIST: options.webDist ?? '',
+    INGEST_FLUSH_MS: '50',
+  });
+  const server: RunningServer = await startServer(config, logger);
+  return {
+    server,
+    logger,
+    database: seeding,
+    baseUrl: `http://127.0.0.1:${server.httpPort}`,
+    mqttUrl: `mqtt://127.0.0.1:${server.mqttPort}`,
+    async stop() {
+      await server.stop();
+      await seeding.close();
+      await database.drop();
+    },
+  };
+}

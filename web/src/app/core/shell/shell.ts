@@ -1,0 +1,45 @@
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatListModule } from '@angular/material/list';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatSidenavModule } from '@angular/material/sidenav';
+import { MatToolbarModule } from '@angular/material/toolbar';
+import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { map } from 'rxjs';
+import { Auth } from '../auth';
+import { Theme } from '../theme';
+
+/** The app frame: toolbar, side navigation, main landmark and safety footer. */
+@Component({
+  selector: 'cw-shell',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    MatToolbarModule,
+    MatSidenavModule,
+    MatListModule,
+    MatButtonModule,
+    MatIconModule,
+    MatMenuModule,
+    RouterOutlet,
+    RouterLink,
+    RouterLinkActive,
+  ],
+  templateUrl: './shell.html',
+  styleUrl: './shell.scss',
+})
+export class Shell {
+  protected readonly auth = inject(Auth);
+  protected readonly theme = inject(Theme);
+  private readonly breakpoints = inject(BreakpointObserver);
+
+  protected readonly isPhone = toSignal(
+    this.breakpoints.observe('(max-width: 599.98px)').pipe(map((state) => state.matches)),
+    { initialValue: false },
+  );
+  protected readonly themeLabel = computed(() =>
+    this.theme.mode() === 'dark' ? 'Switch to light theme' : 'Switch to dark theme',
+  );
+}

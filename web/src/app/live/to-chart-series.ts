@@ -1,0 +1,45 @@
+import type { ChartData } from 'chart.js';
+
+/** The fields the live chart plots. */
+export interface ChartPoint {
+  measuredAt: number;
+  voltage: number;
+  current: number;
+}
+
+/** Turns readings into a new chart.js data object: voltage on the left axis, current on the right. */
+export function toChartSeries(points: readonly ChartPoint[]): ChartData<'line', { x: number; y: number }[]> {
+  const sorted = [...points].sort((a, b) => a.measuredAt - b.measuredAt);
+  return {
+    datasets: [
+      {
+        label: 'Voltage (V)',
+        data: sorted.map((p) => ({ x: p.measuredAt, y: p.voltage })),
+        yAxisID: 'voltage',
+        borderColor: '#1f9e8a',
+        backgroundColor: '#1f9e8a',
+        pointRadius: 0,
+        tension: 0.2,
+      },
+      {
+        label: 'Current (A)',
+        data: sorted.map((p) => ({ x: p.measuredAt, y: p.current })),
+        yAxisID: 'current',
+        borderColor: '#e08a1e',
+        backgroundColor: '#e08a1e',
+        pointRadius: 0,
+        tension: 0.2,
+      },
+    ],
+  };
+}
+
+/** Appends a point and keeps only those within `windowMs` of the newest. */
+export function appendWithin<T extends { measuredAt: number }>(
+  points: readonly T[],
+  point: T,
+  windowMs: number,
+): T[] {
+  const cutoff = point.measuredAt - windowMs;
+  return [...points.filter((p) => p.measuredAt >= cutoff && p.measuredAt !== point.measuredAt), point];
+}
