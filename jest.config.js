@@ -1,10 +1,7 @@
 // One jest run, one project per kind of test. Node code is transpiled by ts-jest (type checking is
 // the linter's and tsc's job); aedes ships ES modules only, so it is transpiled too.
 const nodeTransform = {
-  '^.+\\.(t|j)s$': [
-    'ts-jest',
-    { tsconfig: '<rootDir>/tsconfig.spec.json', isolatedModules: true, diagnostics: false },
-  ],
+  '^.+\\.(t|j)s$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json', diagnostics: false }],
 };
 const nodeProject = (displayName, roots, extra = {}) => ({
   displayName,

@@ -91,7 +91,7 @@ function initialise(bin, cluster, log) {
       cluster.superuser,
       `--pwfile=${pwfile}`,
       '--auth-host=scram-sha-256',
-      '--auth-local=peer',
+      '--auth-local=scram-sha-256',
       '-E',
       'UTF8',
       '--no-locale',

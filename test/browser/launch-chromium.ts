@@ -1,11 +1,10 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { chromium, type Browser } from 'playwright-core';
 
-/** Debian's Chromium, headless, with a fresh profile and no background traffic. */
+/**
+ * Debian's Chromium, headless, with no background traffic. playwright-core gives every launch a
+ * fresh, throwaway profile folder of its own.
+ */
 export async function launchChromium(): Promise<{ browser: Browser; close(): Promise<void> }> {
-  const profile = mkdtempSync(join(tmpdir(), 'cw-chromium-'));
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
@@ -17,14 +16,7 @@ export async function launchChromium(): Promise<{ browser: Browser; close(): Pro
       '--disable-sync',
       '--no-first-run',
       '--disable-quic',
-      `--user-data-dir=${profile}`,
     ],
   });
-  return {
-    browser,
-    async close() {
-      await browser.close();
-      rmSync(profile, { recursive: true, force: true });
-    },
-  };
+  return { browser, close: () => browser.close() };
 }
