@@ -1,5 +1,5 @@
 import type { PublicUser } from '../accounts/accounts-service';
-import type { SystemSummary, Visibility } from './systems-repository';
+import type { StoredSystem, Visibility } from './systems-repository';
 
 // The object-level access rule, in one place: every route and every stream subscription asks it.
 // Foundation rule: an owner sees their systems; installers and admins see their company's systems.
@@ -17,7 +17,7 @@ export function visibilityFor(user: PublicUser): Visibility {
 /** Whether a user may view one system's data. */
 export function mayViewSystem(
   user: PublicUser,
-  system: Pick<SystemSummary, 'ownerId' | 'installerCompanyId'>,
+  system: Pick<StoredSystem, 'ownerId' | 'installerCompanyId'>,
 ): boolean {
   if (system.ownerId === user.id) return true;
   const visibility = visibilityFor(user);

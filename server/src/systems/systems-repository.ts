@@ -1,18 +1,10 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { BatteryReading } from '@cellwarden/shared';
+import type { SystemSummary } from '@cellwarden/shared';
 
-/** A battery system with its latest reading, as the API shows it. */
-export interface SystemSummary {
-  id: string;
-  name: string;
-  kind: 'van' | 'cabin' | 'boat';
-  chemistry: 'lifepo4' | 'agm' | 'flooded';
-  nominalVoltage: 12 | 24 | 48;
-  ratedCapacityAh: number;
-  usableCapacityAh: number;
+/** A system as stored: what the API shows, plus who owns and services it (for the access rule). */
+export interface StoredSystem extends SystemSummary {
   ownerId: string;
   installerCompanyId: string | null;
-  latestReading: (BatteryReading & { receivedAt: number }) | null;
 }
 
 /** Which systems a caller may list: their own, and those of the company they work for. */
@@ -36,7 +28,7 @@ const SELECT_SYSTEM = `
     SELECT * FROM readings WHERE system_id = s.id ORDER BY measured_at DESC LIMIT 1
   ) r ON true`;
 
-function stripNulls(summary: SystemSummary): SystemSummary {
+function stripNulls(summary: StoredSystem): StoredSystem {
   const reading = summary.latestReading as Record<string, unknown> | null;
   if (reading) for (const key of Object.keys(reading)) if (reading[key] === null) delete reading[key];
   return summary;
@@ -45,8 +37,8 @@ function stripNulls(summary: SystemSummary): SystemSummary {
 /** Data access for systems. */
 export function createSystemsRepository(sequelize: Sequelize) {
   return {
-    async listVisible(visibility: Visibility): Promise<SystemSummary[]> {
-      const rows = await sequelize.query<SystemSummary>(
+    async listVisible(visibility: Visibility): Promise<StoredSystem[]> {
+      const rows = await sequelize.query<StoredSystem>(
         `${SELECT_SYSTEM} WHERE s.owner_id = :userId
            OR (:seesCompany AND s.installer_company_id IS NOT NULL AND s.installer_company_id = :companyId)
          ORDER BY s.name`,
@@ -61,8 +53,8 @@ export function createSystemsRepository(sequelize: Sequelize) {
       );
       return rows.map(stripNulls);
     },
-    async findById(id: string): Promise<SystemSummary | undefined> {
-      const rows = await sequelize.query<SystemSummary>(`${SELECT_SYSTEM} WHERE s.id = :id`, {
+    async findById(id: string): Promise<StoredSystem | undefined> {
+      const rows = await sequelize.query<StoredSystem>(`${SELECT_SYSTEM} WHERE s.id = :id`, {
         replacements: { id },
         type: QueryTypes.SELECT,
       });

@@ -1,7 +1,7 @@
 import type { PublicUser } from '../accounts/accounts-service';
 import { notFound } from '../errors/app-error';
 import { mayViewSystem, visibilityFor } from './system-access';
-import type { SystemsRepository, SystemSummary } from './systems-repository';
+import type { StoredSystem, SystemsRepository } from './systems-repository';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -11,7 +11,7 @@ export function createSystemsService(repository: SystemsRepository) {
     listFor: (user: PublicUser) => repository.listVisible(visibilityFor(user)),
 
     /** A system the user may view; 404 both when it does not exist and when they may not see it. */
-    async getFor(user: PublicUser, systemId: string): Promise<SystemSummary> {
+    async getFor(user: PublicUser, systemId: string): Promise<StoredSystem> {
       const system = UUID.test(systemId) ? await repository.findById(systemId) : undefined;
       if (!system || !mayViewSystem(user, system)) throw notFound('System');
       return system;

@@ -1,0 +1,31 @@
+// The shapes of Cellwarden's HTTP API that the server sends and the dashboard reads: one definition for both.
+import type { BatteryReading } from '../telemetry/reading';
+
+/** A reading as the server stored it, with the time it arrived. */
+export type ReceivedReading = BatteryReading & { receivedAt: number };
+
+/** One battery system the signed-in user may see, as GET /api/systems returns it. */
+export interface SystemSummary {
+  id: string;
+  name: string;
+  kind: 'van' | 'cabin' | 'boat';
+  chemistry: 'lifepo4' | 'agm' | 'flooded';
+  nominalVoltage: 12 | 24 | 48;
+  ratedCapacityAh: number;
+  usableCapacityAh: number;
+  latestReading: ReceivedReading | null;
+}
+
+/** One point of GET /api/systems/:id/readings. */
+export interface HistoryPoint {
+  measuredAt: number;
+  voltage: number;
+  current: number;
+  temperature: number;
+  stateOfCharge?: number;
+}
+
+/** The error body every API endpoint uses. */
+export interface ApiErrorBody {
+  error: { code: string; message: string; field?: string };
+}
