@@ -35,3 +35,5 @@ export { resolvePack } from './senml/resolve-pack';
 export { MAX_READING_PAYLOAD_BYTES } from './senml/reading-measurement';
 export { encodeReadingPack, decodeReadingPack, parseReadingPayload } from './senml/reading-pack';
 export type { ApiErrorBody, HistoryPoint, ReceivedReading, SystemSummary } from './api/api-contract';
+export * from './analytics/index';
+export * from './installer/index';

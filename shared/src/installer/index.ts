@@ -1,0 +1,2 @@
+// Public surface of shared/src/installer; filled in as its modules land.
+export {};
