@@ -37,3 +37,10 @@ export { encodeReadingPack, decodeReadingPack, parseReadingPayload } from './sen
 export type { ApiErrorBody, HistoryPoint, ReceivedReading, SystemSummary } from './api/api-contract';
 export * from './analytics/index';
 export * from './installer/index';
+export type * from './api/accounts-contract';
+export { MIN_PASSWORD_LENGTH } from './api/accounts-contract';
+export type * from './api/access-contract';
+export type * from './api/alerts-contract';
+export type * from './api/stream-contract';
+export type * from './api/settings-contract';
+export type * from './api/installer-contract';
