@@ -2,6 +2,18 @@ import type { Migration } from './migration';
 import { createAccounts } from './2026.12.02T06.00.00.create-accounts';
 import { createSystems } from './2026.12.02T06.10.00.create-systems';
 import { createReadings } from './2026.12.02T06.20.00.create-readings';
+import { createAccess } from './2026.12.02T07.00.00.create-access';
+import { createRollups } from './2026.12.02T07.10.00.create-rollups';
+import { createAlerts } from './2026.12.02T07.20.00.create-alerts';
+import { createInstallerRecords } from './2026.12.02T07.30.00.create-installer-records';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
-export const migrations: Migration[] = [createAccounts, createSystems, createReadings];
+export const migrations: Migration[] = [
+  createAccounts,
+  createSystems,
+  createReadings,
+  createAccess,
+  createRollups,
+  createAlerts,
+  createInstallerRecords,
+];

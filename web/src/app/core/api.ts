@@ -1,9 +1,26 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import type { SystemStatus } from '@cellwarden/shared';
 import { Observable, map } from 'rxjs';
 import type { HistoryPoint, SystemSummary, User } from './system-summary';
 
-/** Typed client for the Cellwarden REST API. */
+/** GET /api/systems/:id/readings: points downsampled to `resolution` (e.g. "raw", "1m", "1h"). */
+export interface ReadingHistory {
+  resolution: string;
+  points: HistoryPoint[];
+}
+
+/** The path of one system's resource, id escaped. */
+export function systemPath(id: string, rest = ''): string {
+  return `/api/systems/${encodeURIComponent(id)}${rest}`;
+}
+
+/** Query parameters for a time range, as ISO 8601 instants. */
+export function rangeParams(from: Date, to: Date): HttpParams {
+  return new HttpParams().set('from', from.toISOString()).set('to', to.toISOString());
+}
+
+/** Typed client for the systems and readings endpoints of the Cellwarden REST API. */
 @Injectable({ providedIn: 'root' })
 export class Api {
   private readonly http = inject(HttpClient);
@@ -20,21 +37,18 @@ export class Api {
 
   /** One system by id. */
   system(id: string): Observable<SystemSummary> {
-    return this.http
-      .get<{ system: SystemSummary }>(`/api/systems/${encodeURIComponent(id)}`)
-      .pipe(map((body) => body.system));
+    return this.http.get<{ system: SystemSummary }>(systemPath(id)).pipe(map((body) => body.system));
   }
 
-  /** Stored readings of one system between two instants. */
-  readings(id: string, from: Date, to: Date): Observable<HistoryPoint[]> {
-    const params = new HttpParams().set('from', from.toISOString()).set('to', to.toISOString());
+  /** The latest reading, the derived state and the active alerts of one system. */
+  status(id: string): Observable<SystemStatus> {
+    return this.http.get<{ status: SystemStatus }>(systemPath(id, '/status')).pipe(map((body) => body.status));
+  }
+
+  /** Stored readings of one system between two instants, downsampled by the server. */
+  readings(id: string, from: Date, to: Date): Observable<ReadingHistory> {
     return this.http
-      .get<{ resolution: string; points: HistoryPoint[] }>(
-        `/api/systems/${encodeURIComponent(id)}/readings`,
-        {
-          params,
-        },
-      )
-      .pipe(map((body) => body.points ?? []));
+      .get<ReadingHistory>(systemPath(id, '/readings'), { params: rangeParams(from, to) })
+      .pipe(map((body) => ({ resolution: body.resolution, points: body.points ?? [] })));
   }
 }
