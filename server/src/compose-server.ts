@@ -1,8 +1,17 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { createGrantsRepository } from './access/grants-repository';
+import { createGrantsService } from './access/grants-service';
+import { createAccountLinksRepository } from './accounts/account-links-repository';
+import { createAccountMail } from './accounts/account-mail-sender';
 import { createAccountsRepository } from './accounts/accounts-repository';
 import { createAccountsService } from './accounts/accounts-service';
+import { createInvitationsService } from './accounts/invitations-service';
+import { createPasswordResetService } from './accounts/password-reset-service';
+import { createSessionsRepository } from './accounts/sessions-repository';
 import { createApp } from './app';
+import { createAuditRepository } from './audit/audit-repository';
+import { createAuditService } from './audit/audit-service';
 import { createBrokerPolicy } from './broker/broker-policy';
 import { startMqttBroker } from './broker/mqtt-broker';
 import type { Config } from './config';
@@ -12,6 +21,10 @@ import { createDevicesService } from './devices/devices-service';
 import { createBatchWriter } from './ingest/batch-writer';
 import { createIngestService } from './ingest/ingest-service';
 import type { Logger } from './logger';
+import { startMailCatcher, type MailCatcher } from './mail/mail-catcher';
+import { createMailOutboxRoutes } from './mail/mail-routes';
+import { createMailer } from './mail/mailer';
+import { requireAdmin } from './mail/require-admin';
 import { attachLiveStream } from './stream/live-stream-server';
 import { createSystemsRepository } from './systems/systems-repository';
 import { createSystemsService } from './systems/systems-service';
@@ -19,6 +32,7 @@ import { createReadingsHub } from './telemetry/readings-hub';
 import { createReadingsRepository } from './telemetry/readings-repository';
 import { createReadingsService } from './telemetry/readings-service';
 import { migrateToLatest } from '../../db/migrator';
+import { Router } from 'express';
 
 /** A running Cellwarden node: HTTP (API, dashboard, stream) and the MQTT broker. */
 export interface RunningServer {
@@ -26,6 +40,8 @@ export interface RunningServer {
   mqttPort: number;
   http: Server;
   ingest: ReturnType<typeof createIngestService>;
+  /** The local SMTP catcher, when no SMTP_URL was configured. */
+  mailCatcher: MailCatcher | undefined;
   stop(): Promise<void>;
 }
 
@@ -37,63 +53,146 @@ export async function startServer(
 ): Promise<RunningServer> {
   const sequelize = connectDatabase(config.DATABASE_URL);
   await migrateToLatest(sequelize, (m) => logger.debug('migration', { step: m }));
+  const mailCatcher = config.SMTP_URL
+    ? undefined
+    : await startMailCatcher({ host: '127.0.0.1', port: 0, limit: 200, logger });
+  const mailer = createMailer({
+    smtpUrl: config.SMTP_URL || mailCatcher!.url,
+    from: config.MAIL_FROM,
+    logger,
+  });
+  let publicUrl = config.PUBLIC_URL ?? '';
+
   const accountsRepository = createAccountsRepository(sequelize);
+  const sessions = createSessionsRepository(sequelize);
   const accounts = createAccountsService({
     repository: accountsRepository,
+    sessions,
     jwtSecret: config.JWT_SECRET,
     tokenTtlSeconds: config.ACCESS_TOKEN_TTL_SECONDS,
+    now,
   });
-  const systems = createSystemsService(createSystemsRepository(sequelize));
+  const links = createAccountLinksRepository(sequelize);
+  const accountMail = createAccountMail(mailer);
+  const linkDeps = {
+    links,
+    accounts: accountsRepository,
+    mail: accountMail,
+    now,
+    publicUrl: () => publicUrl,
+  };
+  const invitations = createInvitationsService({ ...linkDeps, sessions: accounts });
+  const passwordReset = createPasswordResetService({ ...linkDeps, sessions });
+
+  const grantsRepository = createGrantsRepository(sequelize);
+  const systems = createSystemsService({
+    repository: createSystemsRepository(sequelize),
+    grants: grantsRepository,
+    now,
+  });
+  const audit = createAuditService({ repository: createAuditRepository(sequelize), systems, logger });
+  let onAccessRevoked: (systemId: string) => void = () => undefined;
+  const grants = createGrantsService({
+    repository: grantsRepository,
+    accounts: accountsRepository,
+    systems,
+    audit,
+    now,
+    onAccessRevoked: (systemId) => onAccessRevoked(systemId),
+  });
   const readingsRepository = createReadingsRepository(sequelize);
-  const readings = createReadingsService({ systems, repository: readingsRepository, now });
+  const readings = createReadingsService({ systems, repository: readingsRepository, audit, now });
   const hub = createReadingsHub();
+  const devicesRepository = createDevicesRepository(sequelize);
   const writer = createBatchWriter({
     repository: readingsRepository,
     logger,
     batchSize: config.INGEST_BATCH_SIZE,
     flushMs: config.INGEST_FLUSH_MS,
     queueLimit: config.INGEST_QUEUE_LIMIT,
-    onStored: (rows) => rows.forEach(({ systemId, reading }) => hub.publish({ systemId, reading })),
+    onStored: (rows) => {
+      const lastSeen = new Map<string, number>();
+      for (const { systemId, deviceId, reading } of rows) {
+        lastSeen.set(deviceId, Math.max(lastSeen.get(deviceId) ?? 0, reading.measuredAt));
+        hub.publish({
+          systemId,
+          message: { type: 'reading', systemId, reading: { ...reading, receivedAt: now() }, derived: null },
+        });
+      }
+      devicesRepository
+        .markSeen(lastSeen)
+        .catch((error) => logger.warn('last seen not updated', { error: String(error) }));
+    },
   });
   const ingest = createIngestService({ writer, logger, now });
-  const devices = createDevicesService(createDevicesRepository(sequelize));
+  let mqttPort = 0;
+  const devices = createDevicesService({
+    repository: devicesRepository,
+    systems,
+    audit,
+    brokerPort: () => mqttPort,
+  });
   const broker = await startMqttBroker({
     host: config.HOST,
     port: config.MQTT_PORT,
     policy: createBrokerPolicy({ devices, ingest, logger }),
     logger,
   });
+  mqttPort = broker.port;
 
+  const signedInRouters: Record<string, Router> = {};
+  if (mailCatcher)
+    signedInRouters['/api/dev/mail'] = Router().use(requireAdmin, createMailOutboxRoutes(mailCatcher));
   const app = createApp({
     sequelize,
     logger,
     jwtSecret: config.JWT_SECRET,
     accountsRepository,
     accounts,
+    invitations,
+    passwordReset,
+    signInLimits: {
+      perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
+      perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
+      windowSeconds: config.SIGN_IN_LIMIT_WINDOW_SECONDS,
+    },
     systems,
+    grants,
+    devices,
+    audit,
     readings,
     ingest,
+    signedInRouters,
+    corsOrigins: config.CORS_ORIGINS.split(',')
+      .map((o) => o.trim())
+      .filter(Boolean),
     webDist: config.WEB_DIST,
   });
   const http = createServer(app);
   http.on('clientError', (_error, socket) => socket.destroy());
-  const stream = attachLiveStream({ server: http, accounts, systems, hub, logger });
+  const stream = attachLiveStream({ server: http, accounts, systems, hub, logger, now });
+  onAccessRevoked = (systemId) => stream.accessChanged(systemId);
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
     http.listen(config.PORT, config.HOST, () => resolve());
   });
+  const httpPort = (http.address() as AddressInfo).port;
+  publicUrl ||= `http://${config.HOST}:${httpPort}`;
 
   return {
-    httpPort: (http.address() as AddressInfo).port,
-    mqttPort: broker.port,
+    httpPort,
+    mqttPort,
     http,
     ingest,
+    mailCatcher,
     async stop() {
       stream.close();
       await new Promise<void>((resolve) => http.close(() => resolve()));
       http.closeAllConnections();
       await broker.close();
       writer.close();
+      mailer.close();
+      await mailCatcher?.stop();
       await sequelize.close();
     },
   };

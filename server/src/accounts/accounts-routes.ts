@@ -1,21 +1,94 @@
-import { Router, type RequestHandler } from 'express';
+import { Router, type CookieOptions, type Request, type RequestHandler, type Response } from 'express';
+import { MIN_PASSWORD_LENGTH } from '@cellwarden/shared';
 import { z } from 'zod';
-import type { AccountsService } from './accounts-service';
+import type { AccountsService, IssuedSession } from './accounts-service';
+import { REFRESH_TOKEN_TTL_MS } from './accounts-service';
+import type { InvitationsService } from './invitations-service';
+import type { PasswordResetService } from './password-reset-service';
+
+/** The refresh token's cookie: httpOnly so page scripts never see it, only sent to the session routes. */
+export const REFRESH_COOKIE = 'cw_refresh';
+const COOKIE_PATH = '/api/auth';
+
+const email = z
+  .string({ error: 'email is required' })
+  .trim()
+  .toLowerCase()
+  .email('email must be an e-mail address')
+  .max(254);
+const newPassword = z
+  .string({ error: 'password is required' })
+  .min(MIN_PASSWORD_LENGTH, `password must be at least ${MIN_PASSWORD_LENGTH} characters`)
+  .max(200, 'password must be at most 200 characters');
+const token = z
+  .string({ error: 'token is required' })
+  .regex(/^[A-Za-z0-9_-]{20,100}$/, 'token is not a valid link token');
+const displayName = z
+  .string({ error: 'displayName is required' })
+  .trim()
+  .min(1, 'displayName is required')
+  .max(120, 'displayName must be at most 120 characters')
+  .regex(/^[^\p{Cc}]*$/u, 'displayName must not contain control characters');
 
 const signInBody = z.object({
-  email: z.string({ error: 'email is required' }).trim().email('email must be an e-mail address').max(254),
+  email,
   password: z.string({ error: 'password is required' }).min(1, 'password is required').max(1000),
 });
 
-/** Sign-in and who-am-I. */
-export function createAccountsRoutes(accounts: AccountsService, requireUser: RequestHandler): Router {
+function cookieOptions(req: Request): CookieOptions {
+  return { httpOnly: true, sameSite: 'strict', secure: req.secure, path: COOKIE_PATH };
+}
+
+function sendSession(req: Request, res: Response, session: IssuedSession) {
+  res.cookie(REFRESH_COOKIE, session.refreshToken, { ...cookieOptions(req), maxAge: REFRESH_TOKEN_TTL_MS });
+  res.json(session.body);
+}
+
+/** Sign-in, session refresh and sign-out, who-am-I, invitations and password reset. */
+export function createAccountsRoutes(deps: {
+  accounts: AccountsService;
+  invitations: InvitationsService;
+  passwordReset: PasswordResetService;
+  requireUser: RequestHandler;
+  signInLimiters: RequestHandler[];
+}): Router {
   const router = Router();
-  router.post('/sign-in', async (req, res) => {
-    const { email, password } = signInBody.parse(req.body ?? {});
-    res.json(await accounts.signIn(email, password));
+  router.post('/sign-in', ...deps.signInLimiters, async (req, res) => {
+    const body = signInBody.parse(req.body ?? {});
+    sendSession(req, res, await deps.accounts.signIn(body.email, body.password));
   });
-  router.get('/me', requireUser, (req, res) => {
+  router.post('/refresh', async (req, res) => {
+    try {
+      sendSession(req, res, await deps.accounts.refresh(req.cookies?.[REFRESH_COOKIE]));
+    } catch (error) {
+      res.clearCookie(REFRESH_COOKIE, cookieOptions(req));
+      throw error;
+    }
+  });
+  router.post('/sign-out', async (req, res) => {
+    await deps.accounts.signOut(req.cookies?.[REFRESH_COOKIE]);
+    res.clearCookie(REFRESH_COOKIE, cookieOptions(req));
+    res.status(204).end();
+  });
+  router.get('/me', deps.requireUser, (req, res) => {
     res.json({ user: req.currentUser });
+  });
+  router.post('/password-reset/request', ...deps.signInLimiters, async (req, res) => {
+    const body = z.object({ email }).parse(req.body ?? {});
+    await deps.passwordReset.request(body.email);
+    res.status(202).json({ message: 'If that address has an account, a reset link is on its way' });
+  });
+  router.post('/password-reset/complete', async (req, res) => {
+    const body = z.object({ token, password: newPassword }).parse(req.body ?? {});
+    await deps.passwordReset.complete(body.token, body.password);
+    res.status(204).end();
+  });
+  router.get('/invitations/:token', async (req, res) => {
+    res.json({ invitation: await deps.invitations.preview(token.parse(req.params.token)) });
+  });
+  router.post('/invitations/accept', async (req, res) => {
+    const body = z.object({ token, displayName, password: newPassword }).parse(req.body ?? {});
+    sendSession(req, res, await deps.invitations.accept(body.token, body.displayName, body.password));
   });
   return router;
 }

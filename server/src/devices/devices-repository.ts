@@ -1,4 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
+import type { DeviceListing } from '@cellwarden/shared';
 
 /** A battery monitor's credentials, as stored (the secret only as a hash). */
 export interface DeviceRecord {
@@ -8,15 +9,72 @@ export interface DeviceRecord {
   revokedAt: Date | null;
 }
 
+const SELECT_LISTING = `SELECT id, label, (extract(epoch FROM created_at) * 1000)::float8 AS "createdAt",
+  (extract(epoch FROM last_seen_at) * 1000)::float8 AS "lastSeenAt",
+  (extract(epoch FROM revoked_at) * 1000)::float8 AS "revokedAt" FROM devices`;
+
 /** Data access for devices. */
 export function createDevicesRepository(sequelize: Sequelize) {
+  const select = <T extends object>(sql: string, replacements: Record<string, unknown>) =>
+    sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
   return {
     async findById(id: string): Promise<DeviceRecord | undefined> {
-      const rows = await sequelize.query<DeviceRecord>(
+      const rows = await select<DeviceRecord>(
         `SELECT id, system_id AS "systemId", secret_hash AS "secretHash", revoked_at AS "revokedAt" FROM devices WHERE id = :id`,
-        { replacements: { id }, type: QueryTypes.SELECT },
+        { id },
       );
       return rows[0];
+    },
+    listForSystem: (systemId: string) =>
+      select<DeviceListing>(`${SELECT_LISTING} WHERE system_id = :systemId ORDER BY created_at`, {
+        systemId,
+      }),
+    async findListing(systemId: string, id: string): Promise<DeviceListing | undefined> {
+      return (
+        await select<DeviceListing>(`${SELECT_LISTING} WHERE system_id = :systemId AND id = :id`, {
+          systemId,
+          id,
+        })
+      )[0];
+    },
+    /** Adds a device; false when the id is taken (by any system). */
+    async insert(device: {
+      id: string;
+      systemId: string;
+      label: string;
+      secretHash: string;
+    }): Promise<boolean> {
+      const rows = await select(
+        `INSERT INTO devices (id, system_id, label, secret_hash) VALUES (:id, :systemId, :label, :secretHash)
+         ON CONFLICT (id) DO NOTHING RETURNING id`,
+        device,
+      );
+      return rows.length > 0;
+    },
+    async setSecret(systemId: string, id: string, secretHash: string): Promise<boolean> {
+      const rows = await select(
+        `UPDATE devices SET secret_hash = :secretHash, updated_at = now()
+         WHERE system_id = :systemId AND id = :id AND revoked_at IS NULL RETURNING id`,
+        { systemId, id, secretHash },
+      );
+      return rows.length > 0;
+    },
+    async revoke(systemId: string, id: string): Promise<boolean> {
+      const rows = await select(
+        `UPDATE devices SET revoked_at = now(), updated_at = now()
+         WHERE system_id = :systemId AND id = :id AND revoked_at IS NULL RETURNING id`,
+        { systemId, id },
+      );
+      return rows.length > 0;
+    },
+    /** Notes when devices last reported; one statement per ingest batch. */
+    async markSeen(lastSeen: Map<string, number>): Promise<void> {
+      if (lastSeen.size === 0) return;
+      await sequelize.query(
+        `UPDATE devices d SET last_seen_at = GREATEST(coalesce(d.last_seen_at, to_timestamp(0)), to_timestamp(v.at / 1000.0))
+         FROM (SELECT unnest(ARRAY[:ids]::text[]) AS id, unnest(ARRAY[:ats]::float8[]) AS at) v WHERE d.id = v.id`,
+        { replacements: { ids: [...lastSeen.keys()], ats: [...lastSeen.values()] } },
+      );
     },
   };
 }

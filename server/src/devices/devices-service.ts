@@ -1,5 +1,13 @@
-import { verifyPassword } from '../accounts/password-hashing';
+import { randomBytes } from 'node:crypto';
+import { readingsTopic, type DeviceCredentials, type PublicUser } from '@cellwarden/shared';
+import { hashPassword, verifyPassword } from '../accounts/password-hashing';
+import type { AuditService } from '../audit/audit-service';
+import { AppError, notFound } from '../errors/app-error';
+import type { SystemsService } from '../systems/systems-service';
 import type { DevicesRepository } from './devices-repository';
+
+/** Device ids: what the database accepts, checked before any query. */
+export const DEVICE_ID_PATTERN = /^[a-z0-9][a-z0-9-]{2,62}$/;
 
 /** The device a broker connection speaks for, once its credentials check out. */
 export interface AuthenticatedDevice {
@@ -7,17 +15,79 @@ export interface AuthenticatedDevice {
   systemId: string;
 }
 
-/** Checks device credentials (per-device secret, stored hashed). */
-export function createDevicesService(repository: DevicesRepository) {
+// 24 random bytes: 192 bits, far beyond guessing even at the broker's connection rate.
+const newSecret = () => randomBytes(24).toString('base64url');
+
+/** Device credentials: checked by the broker; added, rotated and revoked by those the policy allows. */
+export function createDevicesService(deps: {
+  repository: DevicesRepository;
+  systems?: SystemsService;
+  audit?: AuditService;
+  brokerPort?: () => number;
+}) {
+  const managed = async (user: PublicUser, systemId: string) =>
+    deps.systems!.getFor(user, systemId, 'manage-devices');
+
+  async function credentials(systemId: string, id: string, secret: string): Promise<DeviceCredentials> {
+    return {
+      device: (await deps.repository.findListing(systemId, id))!,
+      mqttUsername: id,
+      mqttPassword: secret,
+      mqttTopic: readingsTopic(id),
+      brokerPort: deps.brokerPort?.() ?? 1883,
+    };
+  }
+
   return {
     async authenticate(deviceId: string, secret: string): Promise<AuthenticatedDevice | undefined> {
-      if (!/^[a-z0-9][a-z0-9-]{2,62}$/.test(deviceId) || secret.length === 0 || secret.length > 200)
-        return undefined;
-      const device = await repository.findById(deviceId);
+      if (!DEVICE_ID_PATTERN.test(deviceId) || secret.length === 0 || secret.length > 200) return undefined;
+      const device = await deps.repository.findById(deviceId);
       if (!device || device.revokedAt) return undefined;
       return (await verifyPassword(secret, device.secretHash))
         ? { deviceId, systemId: device.systemId }
         : undefined;
+    },
+
+    async list(user: PublicUser, systemId: string) {
+      const system = await deps.systems!.getFor(user, systemId, 'view');
+      return deps.repository.listForSystem(system.id);
+    },
+
+    /** Adds a monitor and returns its credentials: the only time the secret is shown. */
+    async add(user: PublicUser, systemId: string, id: string, label: string): Promise<DeviceCredentials> {
+      const system = await managed(user, systemId);
+      const secret = newSecret();
+      if (
+        !(await deps.repository.insert({
+          id,
+          systemId: system.id,
+          label,
+          secretHash: await hashPassword(secret),
+        }))
+      )
+        throw new AppError(
+          'device_id_taken',
+          409,
+          `A device with the id ${id} already exists; choose another`,
+          'id',
+        );
+      await deps.audit?.record(system.id, user, 'device.added', id);
+      return credentials(system.id, id, secret);
+    },
+
+    async rotate(user: PublicUser, systemId: string, id: string): Promise<DeviceCredentials> {
+      const system = await managed(user, systemId);
+      const secret = newSecret();
+      if (!(await deps.repository.setSecret(system.id, id, await hashPassword(secret))))
+        throw notFound('Device');
+      await deps.audit?.record(system.id, user, 'device.rotated', id);
+      return credentials(system.id, id, secret);
+    },
+
+    async revoke(user: PublicUser, systemId: string, id: string): Promise<void> {
+      const system = await managed(user, systemId);
+      if (!(await deps.repository.revoke(system.id, id))) throw notFound('Device');
+      await deps.audit?.record(system.id, user, 'device.revoked', id);
     },
   };
 }

@@ -40,10 +40,11 @@ export function createBatchWriter(deps: {
     flushing = true;
     const batch = queue.slice(0, deps.batchSize);
     try {
-      await deps.repository.insertBatch(batch.map((p) => p.row));
+      const stored = await deps.repository.insertBatch(batch.map((p) => p.row));
       queue.splice(0, batch.length);
       retryDelayMs = 100;
-      deps.onStored(batch.map((p) => p.row));
+      // Only newly stored readings go live: a redelivered duplicate must not be announced (or flagged) twice.
+      if (stored.length > 0) deps.onStored(stored);
       for (const p of batch) p.settle();
     } catch (error) {
       deps.logger.warn('reading batch not stored yet; will retry', {

@@ -1,7 +1,8 @@
 import type { IncomingMessage, Server } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocketServer, type WebSocket } from 'ws';
-import type { AccountsService, PublicUser } from '../accounts/accounts-service';
+import type { PublicUser, StreamMessage } from '@cellwarden/shared';
+import type { AccountsService } from '../accounts/accounts-service';
 import type { Logger } from '../logger';
 import type { SystemsService } from '../systems/systems-service';
 import type { ReadingsHub } from '../telemetry/readings-hub';
@@ -17,7 +18,8 @@ const MAX_MESSAGE_BYTES = 16 * 1024;
 interface StreamClient {
   socket: WebSocket;
   user: PublicUser;
-  systemIds: Set<string>;
+  /** Subscribed system ids, each with the instant the access decision behind it lapses. */
+  subscriptions: Map<string, number>;
   alive: boolean;
 }
 
@@ -38,6 +40,7 @@ export function attachLiveStream(deps: {
   systems: SystemsService;
   hub: ReadingsHub;
   logger: Logger;
+  now: () => number;
 }) {
   const wss = new WebSocketServer({
     noServer: true,
@@ -58,12 +61,12 @@ export function attachLiveStream(deps: {
     );
   });
 
-  function send(client: StreamClient, message: unknown) {
+  function send(client: StreamClient, message: StreamMessage) {
     if (client.socket.readyState === client.socket.OPEN) client.socket.send(JSON.stringify(message));
   }
 
   function onConnection(socket: WebSocket, user: PublicUser) {
-    const client: StreamClient = { socket, user, systemIds: new Set(), alive: true };
+    const client: StreamClient = { socket, user, subscriptions: new Map(), alive: true };
     clients.add(client);
     socket.on('pong', () => (client.alive = true));
     socket.on('error', (error) => deps.logger.debug('stream socket error', { error: error.message }));
@@ -71,49 +74,63 @@ export function attachLiveStream(deps: {
     socket.on('message', (data) => void onMessage(client, data.toString()));
   }
 
+  const invalid = (client: StreamClient, message: string) =>
+    send(client, { type: 'error', code: 'invalid_message', message });
+
   async function onMessage(client: StreamClient, text: string) {
     let message: { type?: unknown; systemIds?: unknown };
     try {
       message = JSON.parse(text);
     } catch {
-      return send(client, {
-        type: 'error',
-        error: { code: 'malformed_json', message: 'Message is not valid JSON' },
-      });
+      return send(client, { type: 'error', code: 'malformed_json', message: 'Message is not valid JSON' });
     }
-    if (
-      message?.type !== 'subscribe' ||
-      !Array.isArray(message.systemIds) ||
-      message.systemIds.length > 500
-    ) {
-      return send(client, {
-        type: 'error',
-        error: {
-          code: 'invalid_message',
-          message: 'Expected {"type":"subscribe","systemIds":[…]} with at most 500 ids',
-          field: 'type',
-        },
-      });
+    const ids = message?.systemIds;
+    if (!Array.isArray(ids) || ids.length > 500 || !ids.every((id) => typeof id === 'string'))
+      return invalid(
+        client,
+        'Expected {"type":"subscribe"|"unsubscribe","systemIds":[…]} with at most 500 ids',
+      );
+    if (message.type === 'unsubscribe') {
+      ids.forEach((id) => client.subscriptions.delete(id));
+      return send(client, { type: 'subscribed', systemIds: [...client.subscriptions.keys()] });
     }
-    const allowed = new Set<string>();
-    for (const id of message.systemIds) {
+    if (message.type !== 'subscribe') return invalid(client, 'type must be "subscribe" or "unsubscribe"');
+    client.subscriptions.clear();
+    for (const id of ids) {
       try {
-        if (typeof id === 'string') allowed.add((await deps.systems.getFor(client.user, id)).id);
+        const { system, access } = await deps.systems.openFor(client.user, id, 'view');
+        client.subscriptions.set(system.id, access.validUntil);
       } catch {
-        send(client, {
-          type: 'error',
-          error: { code: 'not_found', message: `System ${JSON.stringify(id)} not found` },
-        });
+        send(client, { type: 'error', code: 'not_found', message: `System ${JSON.stringify(id)} not found` });
       }
     }
-    client.systemIds = allowed;
-    send(client, { type: 'subscribed', systemIds: [...allowed] });
+    send(client, { type: 'subscribed', systemIds: [...client.subscriptions.keys()] });
   }
 
-  const unsubscribe = deps.hub.subscribe(({ systemId, reading }) => {
+  /** Asks the policy again; access that ended is dropped and the client told, at once. */
+  async function recheck(client: StreamClient, systemId: string) {
+    try {
+      const { access } = await deps.systems.openFor(client.user, systemId, 'view');
+      if (client.subscriptions.has(systemId)) client.subscriptions.set(systemId, access.validUntil);
+    } catch {
+      if (client.subscriptions.delete(systemId))
+        send(client, { type: 'access-ended', systemIds: [systemId] });
+    }
+  }
+
+  const unsubscribe = deps.hub.subscribe(({ systemId, message }) => {
+    const now = deps.now();
     for (const client of clients) {
-      if (!client.systemIds.has(systemId) || client.socket.bufferedAmount > SLOW_CLIENT_BYTES) continue;
-      send(client, { type: 'reading', systemId, reading });
+      const validUntil = client.subscriptions.get(systemId);
+      if (validUntil === undefined) continue;
+      if (validUntil <= now) {
+        client.subscriptions.set(systemId, Number.NEGATIVE_INFINITY);
+        void recheck(client, systemId);
+        continue;
+      }
+      // A slow client loses readings rather than slowing everyone else down.
+      if (client.socket.bufferedAmount > SLOW_CLIENT_BYTES) continue;
+      send(client, message);
     }
   });
 
@@ -128,10 +145,26 @@ export function attachLiveStream(deps: {
     }
   }, HEARTBEAT_MS);
   heartbeat.unref();
+  // Grants expire on their own; a sweep catches a lapsed one even on a system that is not reporting.
+  const expirySweep = setInterval(() => {
+    const now = deps.now();
+    for (const client of clients)
+      for (const [systemId, validUntil] of client.subscriptions)
+        if (validUntil <= now && validUntil !== Number.NEGATIVE_INFINITY) {
+          client.subscriptions.set(systemId, Number.NEGATIVE_INFINITY);
+          void recheck(client, systemId);
+        }
+  }, 1000);
+  expirySweep.unref();
 
   return {
+    /** Called when a grant on the system was revoked: everyone subscribed to it is checked again now. */
+    accessChanged(systemId: string) {
+      for (const client of clients) if (client.subscriptions.has(systemId)) void recheck(client, systemId);
+    },
     close() {
       clearInterval(heartbeat);
+      clearInterval(expirySweep);
       unsubscribe();
       for (const client of clients) client.socket.terminate();
       wss.close();

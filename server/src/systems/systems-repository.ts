@@ -7,11 +7,12 @@ export interface StoredSystem extends SystemSummary {
   installerCompanyId: string | null;
 }
 
-/** Which systems a caller may list: their own, and those of the company they work for. */
+/** Who is asking for a list: their own systems, their company's when they fit or administer, and grants. */
 export interface Visibility {
   userId: string;
   companyId: string | null;
   seesCompanySystems: boolean;
+  now: number;
 }
 
 const SELECT_SYSTEM = `
@@ -41,12 +42,16 @@ export function createSystemsRepository(sequelize: Sequelize) {
       const rows = await sequelize.query<StoredSystem>(
         `${SELECT_SYSTEM} WHERE s.owner_id = :userId
            OR (:seesCompany AND s.installer_company_id IS NOT NULL AND s.installer_company_id = :companyId)
+           OR EXISTS (SELECT 1 FROM grants g WHERE g.system_id = s.id AND g.revoked_at IS NULL
+             AND g.expires_at > to_timestamp(:now / 1000.0)
+             AND (g.grantee_user_id = :userId OR g.grantee_company_id = :companyId))
          ORDER BY s.name`,
         {
           replacements: {
             userId: visibility.userId,
             companyId: visibility.companyId ?? '00000000-0000-0000-0000-000000000000',
             seesCompany: visibility.seesCompanySystems,
+            now: visibility.now,
           },
           type: QueryTypes.SELECT,
         },

@@ -1,20 +1,60 @@
-import type { PublicUser } from '../accounts/accounts-service';
-import { notFound } from '../errors/app-error';
-import { mayViewSystem, visibilityFor } from './system-access';
+import type { PublicUser } from '@cellwarden/shared';
+import { decideAccess, type AccessDecision, type SystemAction } from '../access/access-policy';
+import type { GrantsRepository } from '../access/grants-repository';
+import { forbidden, notFound } from '../errors/app-error';
 import type { StoredSystem, SystemsRepository } from './systems-repository';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-/** Listing and opening systems, with the access rule applied. */
-export function createSystemsService(repository: SystemsRepository) {
-  return {
-    listFor: (user: PublicUser) => repository.listVisible(visibilityFor(user)),
+/** A system together with what the asking person may do with it. */
+export interface SystemWithAccess {
+  system: StoredSystem;
+  access: AccessDecision;
+}
 
-    /** A system the user may view; 404 both when it does not exist and when they may not see it. */
-    async getFor(user: PublicUser, systemId: string): Promise<StoredSystem> {
-      const system = UUID.test(systemId) ? await repository.findById(systemId) : undefined;
-      if (!system || !mayViewSystem(user, system)) throw notFound('System');
-      return system;
+/** Opening systems through the access policy: the only path by which routes and the stream reach a system. */
+export function createSystemsService(deps: {
+  repository: SystemsRepository;
+  grants: GrantsRepository;
+  now: () => number;
+}) {
+  async function open(user: PublicUser, systemId: string): Promise<SystemWithAccess | undefined> {
+    const system = UUID.test(systemId) ? await deps.repository.findById(systemId) : undefined;
+    if (!system) return undefined;
+    const now = deps.now();
+    const access = decideAccess(user, system, await deps.grants.factsForSystem(system.id, now), now);
+    return access.allowed.has('view') ? { system, access } : undefined;
+  }
+
+  return {
+    listFor(user: PublicUser) {
+      return deps.repository.listVisible({
+        userId: user.id,
+        companyId: user.companyId,
+        seesCompanySystems: user.roles.includes('installer') || user.roles.includes('admin'),
+        now: deps.now(),
+      });
+    },
+
+    /**
+     * A system the user may act on. 404 when it does not exist or they may not even view it (its existence
+     * is not revealed); 403 when they may view it but not do `action`.
+     */
+    async getFor(user: PublicUser, systemId: string, action: SystemAction = 'view'): Promise<StoredSystem> {
+      return (await this.openFor(user, systemId, action)).system;
+    },
+
+    /** Like getFor, with the decision itself (the stream keeps its expiry). */
+    async openFor(
+      user: PublicUser,
+      systemId: string,
+      action: SystemAction = 'view',
+    ): Promise<SystemWithAccess> {
+      const opened = await open(user, systemId);
+      if (!opened) throw notFound('System');
+      if (!opened.access.allowed.has(action))
+        throw forbidden(`Your access to this system does not include "${action}"`);
+      return opened;
     },
   };
 }

@@ -1,19 +1,19 @@
-import type { BatteryReading } from '@cellwarden/shared';
+import type { StreamMessage } from '@cellwarden/shared';
 
-/** A stored reading, announced to live subscribers. */
-export interface StoredReading {
+/** Something for the live subscribers of one system: a stored reading with its derived state, or an alert. */
+export interface LiveEvent {
   systemId: string;
-  reading: BatteryReading;
+  message: Extract<StreamMessage, { type: 'reading' } | { type: 'alert' }>;
 }
 
-/** In-process fan-out of stored readings to the live stream (one node; a shared bus can replace it). */
+/** In-process fan-out of live events to the stream (one node; a shared bus can replace it). */
 export function createReadingsHub() {
-  const listeners = new Set<(event: StoredReading) => void>();
+  const listeners = new Set<(event: LiveEvent) => void>();
   return {
-    publish(event: StoredReading): void {
+    publish(event: LiveEvent): void {
       for (const listener of listeners) listener(event);
     },
-    subscribe(listener: (event: StoredReading) => void): () => void {
+    subscribe(listener: (event: LiveEvent) => void): () => void {
       listeners.add(listener);
       return () => listeners.delete(listener);
     },

@@ -1,4 +1,5 @@
-import type { PublicUser } from '../accounts/accounts-service';
+import type { PublicUser } from '@cellwarden/shared';
+import type { AuditService } from '../audit/audit-service';
 import { invalidInput } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
 import type { ReadingsRepository } from './readings-repository';
@@ -19,6 +20,7 @@ function parseTime(field: string, value: unknown, fallback: number): Date {
 export function createReadingsService(deps: {
   systems: SystemsService;
   repository: ReadingsRepository;
+  audit: AuditService;
   now: () => number;
 }) {
   return {
@@ -31,6 +33,12 @@ export function createReadingsService(deps: {
         throw invalidInput('from', 'range must be at most 400 days');
       const bucketMs = Math.ceil((to.getTime() - from.getTime()) / POINT_BUDGET);
       const points = await deps.repository.listDownsampled(system.id, from, to, bucketMs, POINT_BUDGET);
+      await deps.audit.record(
+        system.id,
+        user,
+        'readings.viewed',
+        `${from.toISOString()} – ${to.toISOString()}`,
+      );
       return { resolution: bucketMs <= 1000 ? 'raw' : `${Math.round(bucketMs / 1000)}s`, points };
     },
   };

@@ -23,6 +23,15 @@ export interface HistoryPoint {
   current: number;
   temperature: number;
   stateOfCharge?: number;
+  /** Extremes and energy of the bucket, present when the series is served from rollups (buckets ≥ 1 min). */
+  voltageMin?: number;
+  voltageMax?: number;
+  currentMin?: number;
+  currentMax?: number;
+  ahIn?: number;
+  ahOut?: number;
+  whIn?: number;
+  whOut?: number;
 }
 
 /** The error body every API endpoint uses. */

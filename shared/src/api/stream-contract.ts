@@ -3,7 +3,8 @@ import type { ReceivedReading } from './api-contract';
 import type { AlertEvent, DerivedState } from './alerts-contract';
 
 /** Client → server. */
-export type StreamRequest = { type: 'subscribe'; systemIds: string[] } | { type: 'unsubscribe'; systemIds: string[] };
+export type StreamRequest =
+  { type: 'subscribe'; systemIds: string[] } | { type: 'unsubscribe'; systemIds: string[] };
 
 /** Server → client. */
 export type StreamMessage =

@@ -1,0 +1,13 @@
+import type { Mailer } from '../mail/mailer';
+import { invitationMail, passwordResetMail } from '../mail/mail-templates';
+import type { AccountMail } from './account-mail';
+
+/** The accounts component's e-mail, composed from the templates and sent through the one mailer. */
+export function createAccountMail(mailer: Mailer): AccountMail {
+  return {
+    sendInvitation: (to, link, companyName, expiresAt) =>
+      mailer.send({ to, ...invitationMail({ link, companyName, expiresAt: expiresAt.getTime() }) }),
+    sendPasswordReset: (to, link, expiresAt) =>
+      mailer.send({ to, ...passwordResetMail({ link, expiresAt: expiresAt.getTime() }) }),
+  };
+}

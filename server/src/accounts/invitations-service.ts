@@ -1,0 +1,98 @@
+import type { Invitation, InvitationPreview, PublicUser, Role } from '@cellwarden/shared';
+import { AppError, forbidden, invalidInput } from '../errors/app-error';
+import type { AccountLinksRepository, InvitationRecord } from './account-links-repository';
+import type { AccountMail } from './account-mail';
+import type { AccountsRepository } from './accounts-repository';
+import type { AccountsService, IssuedSession } from './accounts-service';
+import { hashToken, newOneTimeToken } from './one-time-token';
+import { hashPassword } from './password-hashing';
+
+/** How long an invitation link stays good. */
+export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
+
+const invitationGone = () =>
+  new AppError(
+    'invitation_invalid',
+    410,
+    'This invitation was already used or has expired; ask for a new one',
+    'token',
+  );
+
+function toInvitation(record: InvitationRecord & { id: string }): Invitation {
+  return {
+    id: record.id,
+    email: record.email,
+    roles: record.roles,
+    expiresAt: record.expiresAt.getTime(),
+    acceptedAt: record.acceptedAt?.getTime() ?? null,
+  };
+}
+
+/** Company admins invite people by e-mail; the link, used once before it expires, creates the account. */
+export function createInvitationsService(deps: {
+  links: AccountLinksRepository;
+  accounts: AccountsRepository;
+  sessions: AccountsService;
+  mail: AccountMail;
+  publicUrl: () => string;
+  now: () => number;
+}) {
+  return {
+    async invite(admin: PublicUser, email: string, roles: Role[]): Promise<Invitation> {
+      if (!admin.roles.includes('admin') || !admin.companyId)
+        throw forbidden('Only a company admin can invite');
+      if (await deps.accounts.findByEmail(email))
+        throw invalidInput('email', `${email} already has an account`);
+      const { token, hash } = newOneTimeToken();
+      const expiresAt = new Date(deps.now() + INVITATION_TTL_MS);
+      const id = await deps.links.createInvitation({
+        tokenHash: hash,
+        email,
+        roles,
+        companyId: admin.companyId,
+        invitedBy: admin.id,
+        expiresAt,
+      });
+      const company = await deps.accounts.findCompany(admin.companyId);
+      await deps.mail.sendInvitation(
+        email,
+        `${deps.publicUrl()}/invitation/${token}`,
+        company?.name ?? null,
+        expiresAt,
+      );
+      return { id, email, roles, expiresAt: expiresAt.getTime(), acceptedAt: null };
+    },
+
+    async list(admin: PublicUser): Promise<Invitation[]> {
+      if (!admin.roles.includes('admin') || !admin.companyId)
+        throw forbidden('Only a company admin can see invitations');
+      return (await deps.links.listInvitations(admin.companyId)).map(toInvitation);
+    },
+
+    async preview(token: string): Promise<InvitationPreview> {
+      const record = await deps.links.findInvitation(hashToken(token));
+      if (!record || record.acceptedAt || record.expiresAt.getTime() <= deps.now()) throw invitationGone();
+      return {
+        email: record.email,
+        roles: record.roles,
+        companyName: record.companyName,
+        expiresAt: record.expiresAt.getTime(),
+      };
+    },
+
+    async accept(token: string, displayName: string, password: string): Promise<IssuedSession> {
+      const record = await deps.links.claimInvitation(hashToken(token));
+      if (!record) throw invitationGone();
+      const user = await deps.accounts.createUser({
+        email: record.email,
+        displayName,
+        passwordHash: await hashPassword(password),
+        roles: record.roles,
+        companyId: record.companyId,
+      });
+      return deps.sessions.issue(user);
+    },
+  };
+}
+
+export type InvitationsService = ReturnType<typeof createInvitationsService>;

@@ -1,0 +1,18 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AuditService } from './audit-service';
+
+const auditQuery = z.object({
+  limit: z.coerce.number({ error: 'limit must be a number' }).int().min(1).max(500).optional(),
+  before: z.coerce.number({ error: 'before must be a time in ms' }).int().positive().optional(),
+});
+
+/** GET /api/systems/:systemId/audit. */
+export function createAuditRoutes(audit: AuditService): Router {
+  const router = Router();
+  router.get('/:systemId/audit', async (req, res) => {
+    const query = auditQuery.parse(req.query);
+    res.json({ entries: await audit.list(req.currentUser!, req.params.systemId, query) });
+  });
+  return router;
+}
