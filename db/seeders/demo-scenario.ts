@@ -62,6 +62,7 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
       );
       userIds[user.email] = row.id;
     }
+    const systemIds: Record<string, string> = {};
     for (const device of DEMO_DEVICES) {
       const system = SYSTEMS[device.system];
       const [row] = await q<{ id: string }>(
@@ -70,6 +71,7 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
          VALUES (:name, :kind, :chemistry, :nominalVoltage, :rated, :usable, :bms, :ownerId, :companyId) RETURNING id`,
         { ...system, ownerId: userIds[DEMO_USERS[0].email], companyId: company.id },
       );
+      systemIds[device.system] = row.id;
       await q(
         'INSERT INTO devices (id, system_id, secret_hash) VALUES (:id, :systemId, :secretHash) RETURNING id',
         {
@@ -79,6 +81,12 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
         },
       );
     }
+    // The owner lets the fitters' support desk look at the van (not the cabin) for a month.
+    await q(
+      `INSERT INTO grants (system_id, grantee_company_id, access, granted_by, expires_at)
+       VALUES (:systemId, :companyId, 'view', :ownerId, now() + interval '30 days') RETURNING id`,
+      { systemId: systemIds.van, companyId: company.id, ownerId: userIds[DEMO_USERS[0].email] },
+    );
   });
   return true;
 }

@@ -130,7 +130,7 @@ it('streams live readings to a subscriber of a system it may see, and nothing of
         const messages: { type: string }[] = [];
         socket.on('message', (data) => messages.push(JSON.parse(data.toString())));
         socket.on('open', () => {
-          socket.send(JSON.stringify({ type: 'subscribe', systemIds: [vanId] }));
+          socket.send(JSON.stringify({ type: 'subscribe', systemIds: [cabinId] }));
           resolve({ socket, messages });
         });
         socket.on('error', reject);
@@ -143,15 +143,15 @@ it('streams live readings to a subscriber of a system it may see, and nothing of
   };
   await until(() => owner.messages.some((m) => m.type === 'subscribed'));
   await until(() => stranger.messages.some((m) => m.type === 'subscribed'));
-  const client = await deviceClient(van);
+  const client = await deviceClient(cabin);
   await client.publishAsync(
-    readingsTopic(van.id),
-    JSON.stringify(encodeReadingPack(van.id, [reading(Date.now() - 1000)])),
+    readingsTopic(cabin.id),
+    JSON.stringify(encodeReadingPack(cabin.id, [reading(Date.now() - 1000)])),
     { qos: 1 },
   );
   await client.endAsync();
   await until(() => owner.messages.some((m) => m.type === 'reading'));
-  expect(owner.messages.find((m) => m.type === 'reading')?.systemId).toBe(vanId);
+  expect(owner.messages.find((m) => m.type === 'reading')?.systemId).toBe(cabinId);
   expect(stranger.messages.find((m) => m.type === 'subscribed')?.systemIds).toEqual([]);
   expect(stranger.messages.some((m) => m.type === 'reading')).toBe(false);
   owner.socket.close();

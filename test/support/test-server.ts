@@ -6,7 +6,7 @@ import { seedDemoScenario } from '../../db/seeders/demo-scenario';
 import { createTestDatabase } from './test-database';
 
 /** A real Cellwarden node on free ports against its own database, with the demo scenario loaded. */
-export async function startTestServer(options: { webDist?: string } = {}) {
+export async function startTestServer(options: { webDist?: string; env?: Record<string, string> } = {}) {
   const database = await createTestDatabase();
   const seeding = connectDatabase(database.url);
   await seedDemoScenario(seeding);
@@ -17,10 +17,12 @@ export async function startTestServer(options: { webDist?: string } = {}) {
     MQTT_PORT: '0',
     WEB_DIST: options.webDist ?? '',
     INGEST_FLUSH_MS: '50',
+    ...options.env,
   });
   const server: RunningServer = await startServer(config, logger);
   return {
     server,
+    config,
     logger,
     database: seeding,
     baseUrl: `http://127.0.0.1:${server.httpPort}`,
