@@ -43,6 +43,7 @@ export function resolveBatterySetup(setup: BatterySetup): ResolvedBatterySetup {
       `nominalVoltage must be 12, 24 or 48 V; got ${setup.nominalVoltage}`,
     );
   }
+  checkOptions(setup);
   const profile = CHEMISTRY_PROFILES[setup.chemistry];
   const blocks = setup.nominalVoltage / 12;
   return {
@@ -79,6 +80,26 @@ export function dischargeDrainCurrent(battery: ResolvedBatterySetup, current: nu
   if (!usesPeukertCorrection(battery)) return current;
   const exponent = CHEMISTRY_PROFILES[battery.chemistry].peukertExponent;
   return peukertEffectiveCurrent(battery.ratedCapacityAh, battery.ratedHours, current, exponent);
+}
+
+const POSITIVE_OPTIONS = { ratedHours: 'h', tailCurrentA: 'A', chargedVoltage: 'V' } as const;
+const NON_NEGATIVE_OPTIONS = ['restMinutes', 'restCurrentA', 'chargedHoldMinutes'] as const;
+
+function checkOptions(setup: BatterySetup): void {
+  for (const [field, unit] of Object.entries(POSITIVE_OPTIONS) as [keyof typeof POSITIVE_OPTIONS, string][]) {
+    const value = setup[field];
+    if (value !== undefined) checkPositive(field, value, unit);
+  }
+  for (const field of NON_NEGATIVE_OPTIONS) {
+    const value = setup[field];
+    if (value !== undefined && !(Number.isFinite(value) && value >= 0)) {
+      throw new AnalyticsSettingError(
+        'bad_battery_setup',
+        field,
+        `${field} must be zero or more; got ${value}`,
+      );
+    }
+  }
 }
 
 function checkPositive(field: string, value: number, unit: string): void {

@@ -10,7 +10,11 @@ const LOCAL_TIME = /^([01]\d|2[0-3]):([0-5]\d)$/;
 export function nextLocalTime(nowMs: number, hhmm: string, utcOffsetMinutes: number): number {
   const match = LOCAL_TIME.exec(hhmm);
   if (match === null) {
-    throw new AnalyticsSettingError('bad_local_time', 'localTime', `local time must be HH:MM (00:00–23:59); got "${hhmm}"`);
+    throw new AnalyticsSettingError(
+      'bad_local_time',
+      'localTime',
+      `local time must be HH:MM (00:00–23:59); got "${hhmm}"`,
+    );
   }
   if (!Number.isInteger(utcOffsetMinutes) || Math.abs(utcOffsetMinutes) > 14 * 60) {
     throw new AnalyticsSettingError(

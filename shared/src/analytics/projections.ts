@@ -2,7 +2,7 @@
 // and the state of charge expected at a chosen time. Straight-line projections on purpose: they are what a
 // van dweller can check in their head, and the absorption taper only makes "to full" an optimistic bound.
 import { CHEMISTRY_PROFILES } from '../battery/chemistry-profile';
-import { dischargeDrainCurrent, usableCapacityAt } from './battery-setup';
+import { dischargeDrainCurrent, ResolvedBatterySetup, usableCapacityAt } from './battery-setup';
 
 /** Currents smaller than this (A) count as no flow, so a projection is not "thousands of hours". */
 export const NEGLIGIBLE_CURRENT_A = 0.05;
@@ -22,11 +22,16 @@ export interface ProjectionStart {
 export interface ChargeProjection {
   at: number;
   stateOfCharge: number;
-  crossesLowAt?: number;
+  /** When the charge falls through the low threshold before `at`; null when it does not. */
+  crossesLowAt: number | null;
 }
 
 /** Hours until the state of charge reaches `floorPercent` at a steady `meanCurrent`; undefined unless discharging. */
-export function hoursToEmpty(start: ProjectionStart, meanCurrent: number, floorPercent = 0): number | undefined {
+export function hoursToEmpty(
+  start: ProjectionStart,
+  meanCurrent: number,
+  floorPercent = 0,
+): number | undefined {
   if (meanCurrent > -NEGLIGIBLE_CURRENT_A) return undefined;
   const { battery } = start;
   const remainingAh =
@@ -53,7 +58,7 @@ export function projectStateOfCharge(
   const ratePerHour = percentPerHour(start, meanCurrent);
   const hours = Math.max(0, atMs - nowMs) / MS_PER_HOUR;
   const stateOfCharge = Math.min(100, Math.max(0, start.stateOfCharge + ratePerHour * hours));
-  const projection: ChargeProjection = { at: atMs, stateOfCharge };
+  const projection: ChargeProjection = { at: atMs, stateOfCharge, crossesLowAt: null };
   if (ratePerHour < 0 && start.stateOfCharge > lowPercent && stateOfCharge < lowPercent) {
     const hoursToLow = (start.stateOfCharge - lowPercent) / -ratePerHour;
     projection.crossesLowAt = nowMs + Math.round(hoursToLow * MS_PER_HOUR);
@@ -67,6 +72,8 @@ function percentPerHour(start: ProjectionStart, current: number): number {
   const { battery } = start;
   const capacity = usableCapacityAt(battery, start.temperature);
   const stored =
-    current > 0 ? current * CHEMISTRY_PROFILES[battery.chemistry].chargeEfficiency : -dischargeDrainCurrent(battery, -current);
+    current > 0
+      ? current * CHEMISTRY_PROFILES[battery.chemistry].chargeEfficiency
+      : -dischargeDrainCurrent(battery, -current);
   return (stored / capacity) * 100;
 }

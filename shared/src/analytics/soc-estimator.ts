@@ -45,7 +45,9 @@ export function stepSocEstimate(
   if (!(reading.measuredAt > state.measuredAt)) return state;
   const gap = reading.measuredAt - state.measuredAt;
   const counted =
-    gap <= MAX_INTEGRATION_GAP_MS ? state.stateOfCharge + chargeDelta(reading, gap, battery) : state.stateOfCharge;
+    gap <= MAX_INTEGRATION_GAP_MS
+      ? state.stateOfCharge + chargeDelta(reading, gap, battery)
+      : state.stateOfCharge;
   const rested = applyRest(state, reading, battery, clampPercent(counted));
   const synced = applyEndOfCharge(rested, reading, battery);
   return withDisagreement({ ...synced, measuredAt: reading.measuredAt }, reading);
@@ -59,7 +61,9 @@ function initialEstimate(reading: BatteryReading, battery: ResolvedBatterySetup)
     compensatedVoltage(reading, battery),
   );
   const stateOfCharge = clampPercent(reading.stateOfCharge ?? fromVoltage);
-  return withDisagreement({ stateOfCharge, measuredAt: reading.measuredAt }, reading);
+  const first: SocEstimate = { stateOfCharge, measuredAt: reading.measuredAt };
+  if (Math.abs(reading.current) <= battery.restCurrentA) first.restingSince = reading.measuredAt;
+  return withDisagreement(first, reading);
 }
 
 /** Change in state of charge over `gapMs` at the reading's current, percentage points (ΔAh = I·Δt). */
@@ -68,9 +72,7 @@ function chargeDelta(reading: BatteryReading, gapMs: number, battery: ResolvedBa
   const profile = CHEMISTRY_PROFILES[battery.chemistry];
   const current = reading.current;
   const stored =
-    current >= 0
-      ? current * profile.chargeEfficiency
-      : -dischargeDrainCurrent(battery, -current);
+    current >= 0 ? current * profile.chargeEfficiency : -dischargeDrainCurrent(battery, -current);
   const capacity = usableCapacityAt(battery, reading.temperature);
   return ((stored * hours) / capacity) * 100;
 }
@@ -91,7 +93,11 @@ function applyRest(
   next.restingSince = state.restingSince ?? reading.measuredAt;
   const restedLongEnough = reading.measuredAt - next.restingSince >= battery.restMinutes * 60_000;
   if (!restedLongEnough || state.restCorrected) return next;
-  const fromVoltage = stateOfChargeFromOpenCircuit(battery.chemistry, battery.nominalVoltage, reading.voltage);
+  const fromVoltage = stateOfChargeFromOpenCircuit(
+    battery.chemistry,
+    battery.nominalVoltage,
+    reading.voltage,
+  );
   const weight = openCircuitWeight(battery.chemistry, fromVoltage);
   next.stateOfCharge = clampPercent(stateOfCharge + weight * (fromVoltage - stateOfCharge));
   next.restCorrected = true;
