@@ -1,0 +1,40 @@
+import { stripControlCharacters } from '../mail/control-characters';
+import type { CommissioningRecordPhoto } from './commissioning-record-input';
+import { contentBottom, contentWidth, heading } from './record-layout';
+
+// pdfkit's openImage is public but missing from @types/pdfkit.
+type ImageOpener = { openImage(data: Buffer): { width: number; height: number } };
+
+const MAX_PHOTO_HEIGHT = 260;
+
+/** Each photo scaled to fit with its caption; a photo that cannot be read is listed, not fatal. */
+export function writePhotos(doc: PDFKit.PDFDocument, photos: CommissioningRecordPhoto[]): void {
+  if (photos.length === 0) return;
+  heading(doc, 'Photos');
+  photos.forEach((photo, index) => writePhoto(doc, photo, index + 1));
+}
+
+function writePhoto(doc: PDFKit.PDFDocument, photo: CommissioningRecordPhoto, number: number): void {
+  const caption = `Photo ${number}: ${stripControlCharacters(photo.caption) || 'no caption'}`;
+  const image = openImage(doc, photo.data);
+  if (!image) return void doc.text(`${caption} (the image could not be read and is left out)`);
+  const scale = Math.min(contentWidth(doc) / image.width, MAX_PHOTO_HEIGHT / image.height);
+  const width = image.width * scale;
+  const height = image.height * scale;
+  if (doc.y + height + 2 * doc.currentLineHeight(true) > contentBottom(doc)) doc.addPage();
+  const top = doc.y;
+  doc.image(image as unknown as PDFKit.Mixins.ImageSrc, doc.page.margins.left, top, { width, height });
+  doc.y = top + height + 4;
+  doc.text(caption);
+  doc.moveDown(0.5);
+}
+
+function openImage(doc: PDFKit.PDFDocument, data: Buffer): { width: number; height: number } | null {
+  try {
+    // openImage only reads the header and image data; a bad buffer throws before anything is drawn.
+    const image = (doc as unknown as ImageOpener).openImage(data);
+    return image.width > 0 && image.height > 0 ? image : null;
+  } catch {
+    return null;
+  }
+}
