@@ -1,81 +1,76 @@
-import { encodeReadingPack, readingsTopic } from '@cellwarden/shared';
-import type { IClientOptions, MqttClient } from 'mqtt';
-import { parseCli, USAGE } from './cli';
-import { SCENARIOS } from './scenario';
-import { simulateReadings } from './simulate-readings';
+import { CliArgumentError, CliOptions, parseCli, USAGE } from './cli';
+import { PublisherDeps, publishDevice } from './device-publisher';
+import { planDevices } from './fleet';
+import { SCENARIO_SUMMARIES, SCENARIOS } from './scenario-catalog';
 
 /** What run needs from the outside world. */
-export interface RunDeps {
-  connect: (url: string, options: IClientOptions) => Promise<MqttClient>;
-  now: () => number;
-  stdout: (text: string) => void;
+export interface RunDeps extends PublisherDeps {
   stderr: (text: string) => void;
-  /** Waits in real time; live runs pace readings with it. */
-  sleep?: (ms: number) => Promise<void>;
 }
 
-// Without --count the simulator runs live: a day of readings, each sent when its measured time comes.
-const LIVE_READINGS = 8640;
+// A run faster than real time without --start replays this much of the past, so no reading is in the future.
+const REPLAY_MS = 24 * 3600 * 1000;
 
-async function publishDevice(
-  deps: RunDeps,
-  broker: string,
-  device: { id: string; secret: string },
-  readings: ReturnType<typeof simulateReadings>['readings'],
-  live: boolean,
-) {
-  const client = await deps.connect(broker, {
-    username: device.id,
-    password: device.secret,
-    clientId: `cw-sim-${device.id}`,
-    clean: false,
-  });
+function parse(argv: string[], deps: RunDeps): CliOptions | undefined {
   try {
-    for (const reading of readings) {
-      const due = reading.measuredAt - deps.now();
-      if (live && due > 0 && deps.sleep) await deps.sleep(due);
-      await client.publishAsync(
-        readingsTopic(device.id),
-        JSON.stringify(encodeReadingPack(device.id, [reading])),
-        { qos: 1 },
-      );
-    }
-  } finally {
-    await client.endAsync();
-  }
-}
-
-/** Runs the simulator from a command line; resolves to the process exit code. */
-export async function run(argv: string[], deps: RunDeps): Promise<number> {
-  let options;
-  try {
-    options = parseCli(argv);
+    return parseCli(argv);
   } catch (error) {
-    deps.stderr(`${(error as Error).message}\n${USAGE}\n`);
-    return 2;
+    const parseError =
+      error instanceof CliArgumentError || (error as { code?: string }).code?.startsWith('ERR_PARSE_ARGS');
+    if (!parseError) throw error;
+    deps.stderr(`${(error as Error).message}\n\n${USAGE}\n`);
+    return undefined;
   }
+}
+
+function listScenarios(deps: RunDeps): void {
+  for (const s of SCENARIO_SUMMARIES) {
+    const sources =
+      s.chargeSources.map((c) => `${c.id} ${c.ratedCurrent} A`).join(', ') || 'no charge sources';
+    deps.stdout(
+      `${s.name}: ${s.nominalVoltage} V ${s.chemistry} ${s.ratedCapacityAh} Ah (${s.usableCapacityAh} Ah usable); ${sources}\n  ${s.description}\n`,
+    );
+  }
+}
+
+function startTime(options: CliOptions, now: number): number {
+  if (options.start !== undefined) return options.start;
+  return options.speed !== undefined && options.speed > 1 ? now - REPLAY_MS : now;
+}
+
+/** Runs the simulator from a command line; resolves to the process exit code (2 for a bad argument). */
+export async function run(argv: string[], deps: RunDeps): Promise<number> {
+  const options = parse(argv, deps);
+  if (!options) return 2;
   if (options.help) {
     deps.stdout(`${USAGE}\n`);
     return 0;
   }
-  const scenario = SCENARIOS[options.scenario];
-  if (!scenario) {
-    deps.stderr(`unknown scenario ${options.scenario}\n${USAGE}\n`);
-    return 2;
+  if (options.listScenarios) {
+    listScenarios(deps);
+    return 0;
   }
-  const start = options.start ? Date.parse(options.start) : deps.now();
-  const live = options.count === undefined;
-  const count = options.count ?? LIVE_READINGS;
-  await Promise.all(
-    options.devices.map((device, index) => {
-      const { readings } = simulateReadings(scenario, {
-        seed: options.seed + index,
-        start,
-        intervalSeconds: options.interval,
-        count,
-      });
-      return publishDevice(deps, options.broker, device, readings, live);
-    }),
-  );
+  const schedule = {
+    broker: options.broker,
+    start: startTime(options, deps.now()),
+    intervalSeconds: options.interval,
+    count: options.count,
+    // Without --count the simulator runs live, each reading sent when its measured time comes.
+    speed: options.speed ?? (options.count === undefined ? 1 : undefined),
+  };
+  try {
+    await Promise.all(
+      planDevices(options).map((device) => {
+        const scenario = SCENARIOS[device.scenario];
+        return publishDevice(deps, device, scenario, {
+          ...schedule,
+          offline: options.offline ?? scenario.offline,
+        });
+      }),
+    );
+  } catch (error) {
+    deps.stderr(`simulator stopped: ${(error as Error).message}\n`);
+    return 1;
+  }
   return 0;
 }

@@ -1,51 +1,48 @@
-import { PackState } from './pack-model';
+import { Chemistry } from '@cellwarden/shared';
+import { BmsConfig } from './battery-protection';
+import { ChargeSourceConfig, ChargeSourceKind, Location } from './charge-sources';
+import { LoadsConfig } from './house-loads';
+import { OfflineSchedule } from './offline-schedule';
+import { PackState, usableCapacityAt25 } from './pack-model';
+import { ThermalConfig } from './thermal-model';
 
 /** A named situation the simulator can play: a pack, its surroundings, its loads and sources. */
 export interface Scenario {
   name: string;
+  description: string;
+  /** The pack at the start. */
   pack: PackState;
-  /** Mean ambient temperature and its day/night swing, °C; coldest at 04:00 local. */
-  ambientMean: number;
-  ambientSwing: number;
-  /** Pack temperature time constant, seconds. */
-  thermalTimeConstant: number;
-  /** Steady house load, A (discharge). */
-  loadCurrent: number;
-  /** Charger output, A, while the charger runs. */
-  chargeCurrent: number;
-  /** False for a pack whose BMS lets a charger push current into it below its minimum charge temperature. */
-  bmsBlocksColdCharge: boolean;
+  location: Location;
+  thermal: ThermalConfig;
+  /** Living-space temperature at the start, °C (defaults to the pack's). */
+  initialCabinTemperature?: number;
+  loads: LoadsConfig;
+  sources: readonly ChargeSourceConfig[];
+  bms: BmsConfig;
+  /** A monitor with a patchy connection drops off on this schedule unless the command line says otherwise. */
+  offline?: OfflineSchedule;
 }
 
-const basePack: PackState = {
-  chemistry: 'lifepo4',
-  nominalVoltage: 12,
-  ratedCapacityAh: 200,
-  stateOfCharge: 70,
-  temperature: 5,
-  current: 0,
-};
+/** What the server, the dashboard's demo and tests may know of a scenario without playing it. */
+export interface ScenarioSummary {
+  name: string;
+  description: string;
+  chemistry: Chemistry;
+  nominalVoltage: 12 | 24 | 48;
+  ratedCapacityAh: number;
+  usableCapacityAh: number;
+  chargeSources: { id: string; kind: ChargeSourceKind; ratedCurrent: number }[];
+}
 
-/** The scenarios available by name. */
-export const SCENARIOS: Readonly<Record<string, Scenario>> = {
-  'frost-night': {
-    name: 'frost-night',
-    pack: basePack,
-    ambientMean: -12,
-    ambientSwing: 6,
-    thermalTimeConstant: 3 * 3600,
-    loadCurrent: 3,
-    chargeCurrent: 20,
-    bmsBlocksColdCharge: false,
-  },
-  'driving-day': {
-    name: 'driving-day',
-    pack: { ...basePack, temperature: 15, stateOfCharge: 40 },
-    ambientMean: 15,
-    ambientSwing: 5,
-    thermalTimeConstant: 3 * 3600,
-    loadCurrent: 4,
-    chargeCurrent: 30,
-    bmsBlocksColdCharge: true,
-  },
-};
+/** A scenario's metadata. */
+export function summarizeScenario(scenario: Scenario): ScenarioSummary {
+  return {
+    name: scenario.name,
+    description: scenario.description,
+    chemistry: scenario.pack.chemistry,
+    nominalVoltage: scenario.pack.nominalVoltage,
+    ratedCapacityAh: scenario.pack.ratedCapacityAh,
+    usableCapacityAh: usableCapacityAt25(scenario.pack),
+    chargeSources: scenario.sources.map(({ id, kind, ratedCurrent }) => ({ id, kind, ratedCurrent })),
+  };
+}

@@ -1,66 +1,80 @@
-import { BatteryReading, CHEMISTRY_PROFILES } from '@cellwarden/shared';
-import { mulberry32, Rng } from './mulberry32';
-import { PackState, stepPack, terminalVoltage } from './pack-model';
+import { BatteryReading } from '@cellwarden/shared';
+import { takeReading } from './battery-monitor';
+import { mulberry32 } from './mulberry32';
 import { Scenario } from './scenario';
+import { initialSystemState, stepSystem, SystemFlows, SystemState } from './system-model';
 
 /** How to play a scenario offline. */
 export interface SimulationOptions {
   seed: number;
-  /** Simulated start time, ms since the epoch. */
+  /** Simulated start time, ms since the epoch: the first reading's measured time. */
   start: number;
   intervalSeconds: number;
   count: number;
 }
 
-/** Readings as a device would report them, beside the true state of charge at each. */
+/** The true state behind one reading, for tests and for checking what the product should infer. */
+export interface TrueSample extends SystemFlows {
+  stateOfCharge: number;
+  packTemperature: number;
+  cabinTemperature: number;
+}
+
+/** Readings as a device would report them, beside the true state of charge and flows at each. */
 export interface SimulationResult {
   readings: BatteryReading[];
   trueStateOfCharge: number[];
+  truth: TrueSample[];
 }
 
-/** Ambient temperature at a time: a sine with its minimum at 04:00 UTC. */
-export function ambientTemperature(scenario: Scenario, at: number): number {
-  const hours = (at / 3_600_000) % 24;
-  return scenario.ambientMean - scenario.ambientSwing * Math.cos(((hours - 4) / 24) * 2 * Math.PI);
-}
+// Physics steps at most this long, s: short enough for a 90 s glow-plug surge and a charger's stage change.
+const MAX_STEP_SECONDS = 10;
 
-/** Net pack current after the BMS decides whether charging is allowed. */
-export function packCurrent(scenario: Scenario, pack: PackState): number {
-  const tooCold = pack.temperature < CHEMISTRY_PROFILES[pack.chemistry].minimumChargeTemperature;
-  const charge = tooCold && scenario.bmsBlocksColdCharge ? 0 : scenario.chargeCurrent;
-  return charge - scenario.loadCurrent;
-}
-
-function stepScenario(scenario: Scenario, pack: PackState, at: number, dt: number): PackState {
-  const ambient = ambientTemperature(scenario, at);
-  const temperature = pack.temperature + ((ambient - pack.temperature) * dt) / scenario.thermalTimeConstant;
-  return stepPack({ ...pack, temperature }, dt, packCurrent(scenario, pack));
-}
-
-function observe(pack: PackState, at: number, rng: Rng): BatteryReading {
-  const noise = (scale: number) => (rng() - 0.5) * 2 * scale;
-  const voltage = terminalVoltage(pack) + noise(0.01);
-  const current = pack.current + noise(0.05);
+function truthOf(state: SystemState): TrueSample {
   return {
-    measuredAt: at,
-    voltage,
-    current,
-    temperature: pack.temperature + noise(0.1),
-    power: voltage * current,
+    ...state.flows,
+    stateOfCharge: state.pack.stateOfCharge,
+    packTemperature: state.pack.temperature,
+    cabinTemperature: state.thermal.cabinTemperature,
   };
 }
 
-/** Plays a scenario without MQTT; the same seed gives the same readings. */
-export function simulateReadings(scenario: Scenario, options: SimulationOptions): SimulationResult {
+function sourceCurrents(state: SystemState): Record<string, number> {
+  return Object.fromEntries(Object.entries(state.flows.sources).map(([id, flow]) => [id, flow.current]));
+}
+
+/** Plays a scenario forever, one reading per interval; the system runs one interval before the first reading. */
+export function* playScenario(
+  scenario: Scenario,
+  options: Omit<SimulationOptions, 'count'>,
+): Generator<{ reading: BatteryReading; truth: TrueSample }> {
   const rng = mulberry32(options.seed);
-  const readings: BatteryReading[] = [];
-  const trueStateOfCharge: number[] = [];
-  let pack = scenario.pack;
-  for (let i = 0; i < options.count; i++) {
-    const at = options.start + i * options.intervalSeconds * 1000;
-    pack = stepScenario(scenario, pack, at, options.intervalSeconds);
-    readings.push(observe(pack, at, rng));
-    trueStateOfCharge.push(pack.stateOfCharge);
+  const steps = Math.max(1, Math.ceil(options.intervalSeconds / MAX_STEP_SECONDS));
+  const dt = options.intervalSeconds / steps;
+  let state = initialSystemState(scenario, options.start - options.intervalSeconds * 1000, rng);
+  for (let i = 0; ; i++) {
+    for (let s = 0; s < steps; s++) state = stepSystem(scenario, state, dt, rng);
+    const measuredAt = options.start + i * options.intervalSeconds * 1000;
+    const values = {
+      measuredAt,
+      voltage: state.flows.busVoltage,
+      current: state.flows.packCurrent,
+      temperature: state.pack.temperature,
+      sourceCurrents: sourceCurrents(state),
+    };
+    yield { reading: takeReading(values, state.monitor, rng), truth: truthOf(state) };
   }
-  return { readings, trueStateOfCharge };
+}
+
+/** Plays `count` readings of a scenario without MQTT; the same seed gives the same readings. */
+export function simulateReadings(scenario: Scenario, options: SimulationOptions): SimulationResult {
+  const result: SimulationResult = { readings: [], trueStateOfCharge: [], truth: [] };
+  if (options.count <= 0) return result;
+  for (const { reading, truth } of playScenario(scenario, options)) {
+    result.readings.push(reading);
+    result.trueStateOfCharge.push(truth.stateOfCharge);
+    result.truth.push(truth);
+    if (result.readings.length >= options.count) break;
+  }
+  return result;
 }
