@@ -9,6 +9,11 @@ import { createAccountsService } from './accounts/accounts-service';
 import { createInvitationsService } from './accounts/invitations-service';
 import { createPasswordResetService } from './accounts/password-reset-service';
 import { createSessionsRepository } from './accounts/sessions-repository';
+import { createAlertNotices } from './alerts/alert-notices';
+import { createAlertsRepository } from './alerts/alerts-repository';
+import { createAlertsRoutes } from './alerts/alerts-routes';
+import { createAlertsService } from './alerts/alerts-service';
+import { createLiveAnalytics } from './alerts/live-analytics';
 import { createApp } from './app';
 import { createAuditRepository } from './audit/audit-repository';
 import { createAuditService } from './audit/audit-service';
@@ -25,6 +30,9 @@ import { startMailCatcher, type MailCatcher } from './mail/mail-catcher';
 import { createMailOutboxRoutes } from './mail/mail-routes';
 import { createMailer } from './mail/mailer';
 import { requireAdmin } from './mail/require-admin';
+import { createSettingsRepository } from './settings/settings-repository';
+import { createPreferencesRoutes, createSettingsRoutes } from './settings/settings-routes';
+import { createSettingsService } from './settings/settings-service';
 import { attachLiveStream } from './stream/live-stream-server';
 import { createSystemsRepository } from './systems/systems-repository';
 import { createSystemsService } from './systems/systems-service';
@@ -103,6 +111,28 @@ export async function startServer(
   const readingsRepository = createReadingsRepository(sequelize);
   const readings = createReadingsService({ systems, repository: readingsRepository, audit, now });
   const hub = createReadingsHub();
+  const alertsRepository = createAlertsRepository(sequelize);
+  const alerts = createAlertsService({
+    repository: alertsRepository,
+    systems,
+    audit,
+    notices: createAlertNotices({ repository: alertsRepository, mailer, logger, now }),
+    logger,
+    publish: (alert) =>
+      hub.publish({ systemId: alert.systemId, message: { type: 'alert', systemId: alert.systemId, alert } }),
+  });
+  const settingsRepository = createSettingsRepository(sequelize);
+  const analytics = createLiveAnalytics({ settings: settingsRepository, alerts, logger, now });
+  const settings = createSettingsService({
+    repository: settingsRepository,
+    systems,
+    audit,
+    onChanged: (systemId) => analytics.settingsChanged(systemId),
+  });
+  const silenceSweep = setInterval(() => {
+    analytics.sweepSilence().catch((error) => logger.warn('silence check failed', { error: String(error) }));
+  }, config.SILENCE_CHECK_SECONDS * 1000);
+  silenceSweep.unref();
   const devicesRepository = createDevicesRepository(sequelize);
   const writer = createBatchWriter({
     repository: readingsRepository,
@@ -112,13 +142,18 @@ export async function startServer(
     queueLimit: config.INGEST_QUEUE_LIMIT,
     onStored: (rows) => {
       const lastSeen = new Map<string, number>();
-      for (const { systemId, deviceId, reading } of rows) {
+      const receivedAt = now();
+      for (const { deviceId, reading } of rows)
         lastSeen.set(deviceId, Math.max(lastSeen.get(deviceId) ?? 0, reading.measuredAt));
-        hub.publish({
-          systemId,
-          message: { type: 'reading', systemId, reading: { ...reading, receivedAt: now() }, derived: null },
-        });
-      }
+      // Readings go live with what the analytics made of them; the order within each system is kept.
+      void analytics.process(rows).then((derived) =>
+        rows.forEach(({ systemId, reading }, i) =>
+          hub.publish({
+            systemId,
+            message: { type: 'reading', systemId, reading: { ...reading, receivedAt }, derived: derived[i] },
+          }),
+        ),
+      );
       devicesRepository
         .markSeen(lastSeen)
         .catch((error) => logger.warn('last seen not updated', { error: String(error) }));
@@ -140,7 +175,7 @@ export async function startServer(
   });
   mqttPort = broker.port;
 
-  const signedInRouters: Record<string, Router> = {};
+  const signedInRouters: Record<string, Router> = { '/api/me': createPreferencesRoutes(settings) };
   if (mailCatcher)
     signedInRouters['/api/dev/mail'] = Router().use(requireAdmin, createMailOutboxRoutes(mailCatcher));
   const app = createApp({
@@ -163,6 +198,7 @@ export async function startServer(
     readings,
     ingest,
     signedInRouters,
+    systemRouters: [createAlertsRoutes({ alerts, systems, analytics }), createSettingsRoutes(settings)],
     corsOrigins: config.CORS_ORIGINS.split(',')
       .map((o) => o.trim())
       .filter(Boolean),
@@ -186,6 +222,7 @@ export async function startServer(
     ingest,
     mailCatcher,
     async stop() {
+      clearInterval(silenceSweep);
       stream.close();
       await new Promise<void>((resolve) => http.close(() => resolve()));
       http.closeAllConnections();

@@ -40,6 +40,8 @@ const configSchema = z.object({
   MAIL_FROM: z.string().default('Cellwarden <no-reply@cellwarden.invalid>'),
   /** Folder uploaded photos and logs are stored in, one subfolder per system. */
   UPLOAD_DIR: z.string().default('.data/uploads'),
+  /** How often silent devices are looked for, seconds. */
+  SILENCE_CHECK_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   /** Log level: error, warn, info or debug. */
   LOG_LEVEL: z.enum(['error', 'warn', 'info', 'debug']).default('info'),
 });

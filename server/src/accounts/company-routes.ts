@@ -38,11 +38,9 @@ export function createCompanyRoutes(deps: {
   });
   router.post('/invitations', async (req, res) => {
     const body = invitationBody.parse(req.body ?? {});
-    res
-      .status(201)
-      .json({
-        invitation: await deps.invitations.invite(req.currentUser!, body.email, [...new Set(body.roles)]),
-      });
+    res.status(201).json({
+      invitation: await deps.invitations.invite(req.currentUser!, body.email, [...new Set(body.roles)]),
+    });
   });
   return router;
 }

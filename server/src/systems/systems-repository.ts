@@ -23,7 +23,11 @@ const SELECT_SYSTEM = `
       'measuredAt', (extract(epoch FROM r.measured_at) * 1000)::bigint,
       'receivedAt', (extract(epoch FROM r.received_at) * 1000)::bigint,
       'voltage', r.voltage, 'current', r.current, 'temperature', r.temperature,
-      'stateOfCharge', r.state_of_charge, 'power', r.power, 'sourceCurrents', r.source_currents) END AS "latestReading"
+      'stateOfCharge', r.state_of_charge, 'power', r.power, 'sourceCurrents', r.source_currents) END AS "latestReading",
+    (SELECT coalesce(json_agg(json_build_object('kind', a.kind, 'severity', a.severity)
+        ORDER BY a.severity = 'critical' DESC, a.started_at), '[]'::json)
+      FROM alert_events a WHERE a.system_id = s.id AND a.ended_at IS NULL) AS "activeFlags",
+    (SELECT (extract(epoch FROM max(d.last_seen_at)) * 1000)::float8 FROM devices d WHERE d.system_id = s.id) AS "lastSeenAt"
   FROM systems s
   LEFT JOIN LATERAL (
     SELECT * FROM readings WHERE system_id = s.id ORDER BY measured_at DESC LIMIT 1

@@ -14,6 +14,13 @@ export interface SystemSummary {
   ratedCapacityAh: number;
   usableCapacityAh: number;
   latestReading: ReceivedReading | null;
+  /** Flags open on the system now, worst first. */
+  activeFlags?: {
+    kind: import('./alerts-contract').FlagKind;
+    severity: import('./alerts-contract').FlagSeverity;
+  }[];
+  /** When any of its monitors last reported, ms; null when none ever did. */
+  lastSeenAt?: number | null;
 }
 
 /** One point of GET /api/systems/:id/readings. */

@@ -1,0 +1,64 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { SystemStatus } from '@cellwarden/shared';
+import type { SystemsService } from '../systems/systems-service';
+import type { AlertsService } from './alerts-service';
+import type { LiveAnalytics } from './live-analytics';
+
+const DAY_MS = 24 * 3600_000;
+const time = (field: string) =>
+  z.iso.datetime({ offset: true, error: `${field} must be an ISO 8601 time` }).transform((t) => new Date(t));
+const alertsQuery = z.object({
+  from: time('from').optional(),
+  to: time('to').optional(),
+  active: z.enum(['true', 'false'], { error: 'active must be true or false' }).optional(),
+});
+const acknowledgement = z.object({
+  note: z
+    .string({ error: 'note is required' })
+    .trim()
+    .max(500, 'note must be at most 500 characters')
+    .regex(/^[^\p{Cc}]*$/u, 'note must not contain control characters'),
+});
+
+/** Alerts and the live status of one system, under /api/systems. */
+export function createAlertsRoutes(deps: {
+  alerts: AlertsService;
+  systems: SystemsService;
+  analytics: LiveAnalytics;
+}): Router {
+  const router = Router();
+  router.get('/:systemId/alerts', async (req, res) => {
+    const query = alertsQuery.parse(req.query);
+    const to = query.to ?? new Date();
+    const from = query.from ?? new Date(to.getTime() - 30 * DAY_MS);
+    const alerts = await deps.alerts.list(req.currentUser!, req.params.systemId, {
+      from,
+      to,
+      activeOnly: query.active === 'true',
+    });
+    res.json({ alerts });
+  });
+  router.post('/:systemId/alerts/:alertId/acknowledge', async (req, res) => {
+    const { note } = acknowledgement.parse(req.body ?? {});
+    res.json({
+      alert: await deps.alerts.acknowledge(req.currentUser!, req.params.systemId, req.params.alertId, note),
+    });
+  });
+  router.get('/:systemId/status', async (req, res) => {
+    const system = await deps.systems.getFor(req.currentUser!, req.params.systemId, 'view');
+    const now = new Date();
+    const status: SystemStatus = {
+      systemId: system.id,
+      latestReading: system.latestReading,
+      derived: await deps.analytics.derivedFor(system.id, system.latestReading),
+      activeAlerts: await deps.alerts.list(req.currentUser!, system.id, {
+        from: now,
+        to: now,
+        activeOnly: true,
+      }),
+    };
+    res.json({ status });
+  });
+  return router;
+}

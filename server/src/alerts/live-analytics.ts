@@ -1,0 +1,141 @@
+import {
+  analyticsConfigFromSettings,
+  checkSilence,
+  deriveSystemState,
+  resolveSystemAnalyticsSettings,
+  type BatteryReading,
+  type DerivedState,
+  type SystemAnalyticsSettings,
+  type SystemAnalyticsState,
+} from '@cellwarden/shared';
+import type { Logger } from '../logger';
+import type { SettingsRepository } from '../settings/settings-repository';
+import { utcOffsetMinutes } from '../settings/utc-offset';
+import type { ReadingRow } from '../telemetry/readings-repository';
+import type { AlertsService } from './alerts-service';
+
+// Settings are re-read at least this often, so a zone's change to or from summer time reaches the projection.
+const SETTINGS_TTL_MS = 10 * 60_000;
+
+interface SystemRuntime {
+  settings: SystemAnalyticsSettings;
+  loadedAt: number;
+  name: string;
+  timeZone: string;
+  state?: SystemAnalyticsState;
+  derived?: DerivedState;
+  /** Wall-clock arrival of the newest reading, to judge silence on the device's own clock. */
+  lastReceivedAt?: number;
+  lastMeasuredAt?: number;
+  /** Keeps one system's readings in order while the next batch arrives. */
+  queue: Promise<unknown>;
+}
+
+/**
+ * Runs the shared analytics on every stored reading of every system: estimator, projections and flags,
+ * keeping each system's small state in memory; flag transitions become alert events.
+ */
+export function createLiveAnalytics(deps: {
+  settings: SettingsRepository;
+  alerts: AlertsService;
+  logger: Logger;
+  now: () => number;
+}) {
+  const runtimes = new Map<string, SystemRuntime>();
+  const pending = new Map<string, Promise<SystemRuntime | undefined>>();
+
+  async function load(systemId: string, previous?: SystemRuntime): Promise<SystemRuntime | undefined> {
+    const stored = await deps.settings.find(systemId);
+    if (!stored) return undefined;
+    const now = deps.now();
+    const config = analyticsConfigFromSettings(stored as never, utcOffsetMinutes(stored.timeZone, now));
+    return {
+      settings: resolveSystemAnalyticsSettings(config),
+      loadedAt: now,
+      name: stored.name,
+      timeZone: stored.timeZone,
+      state: previous?.state,
+      derived: previous?.derived,
+      lastReceivedAt: previous?.lastReceivedAt,
+      lastMeasuredAt: previous?.lastMeasuredAt,
+      queue: previous?.queue ?? Promise.resolve(),
+    };
+  }
+
+  async function runtimeFor(systemId: string): Promise<SystemRuntime | undefined> {
+    const existing = runtimes.get(systemId);
+    if (existing && deps.now() - existing.loadedAt < SETTINGS_TTL_MS) return existing;
+    if (!pending.has(systemId))
+      pending.set(
+        systemId,
+        load(systemId, existing).finally(() => pending.delete(systemId)),
+      );
+    const loaded = await pending.get(systemId)!;
+    if (loaded) runtimes.set(systemId, loaded);
+    return loaded;
+  }
+
+  function step(runtime: SystemRuntime, systemId: string, reading: BatteryReading) {
+    const result = deriveSystemState(runtime.state, reading, runtime.settings);
+    runtime.state = result.state;
+    runtime.derived = result.derived;
+    runtime.lastReceivedAt = deps.now();
+    runtime.lastMeasuredAt = Math.max(runtime.lastMeasuredAt ?? 0, reading.measuredAt);
+    return { derived: result.derived, events: result.events, systemId };
+  }
+
+  return {
+    /** Runs the analytics over stored rows (in order per system); resolves with each row's derived state. */
+    async process(rows: readonly ReadingRow[]): Promise<(DerivedState | null)[]> {
+      const results: Promise<DerivedState | null>[] = rows.map(async (row) => {
+        try {
+          const runtime = await runtimeFor(row.systemId);
+          if (!runtime) return null;
+          const turn = runtime.queue.then(async () => {
+            const { derived, events } = step(runtime, row.systemId, row.reading);
+            if (events.length > 0) await deps.alerts.record(row.systemId, runtime, events);
+            return derived;
+          });
+          runtime.queue = turn.catch(() => undefined);
+          return await turn;
+        } catch (error) {
+          deps.logger.error('analytics failed for a reading', {
+            systemId: row.systemId,
+            error: (error as Error).message,
+          });
+          return null;
+        }
+      });
+      return Promise.all(results);
+    },
+
+    /** The latest derived state, or one worked out from the latest reading alone after a restart. */
+    async derivedFor(systemId: string, latest: BatteryReading | null): Promise<DerivedState | null> {
+      const runtime = await runtimeFor(systemId);
+      if (!runtime) return null;
+      if (runtime.derived) return runtime.derived;
+      return latest ? deriveSystemState(undefined, latest, runtime.settings).derived : null;
+    },
+
+    /** Device silence has no reading to trigger it: checked on a timer, on the device's clock. */
+    async sweepSilence(): Promise<void> {
+      const now = deps.now();
+      for (const [systemId, runtime] of runtimes) {
+        if (!runtime.state || runtime.lastReceivedAt === undefined || runtime.lastMeasuredAt === undefined)
+          continue;
+        const deviceNow = runtime.lastMeasuredAt + (now - runtime.lastReceivedAt);
+        const result = checkSilence(runtime.state.flags, deviceNow);
+        runtime.state = { ...runtime.state, flags: result.state };
+        if (result.events.length > 0) await deps.alerts.record(systemId, runtime, result.events);
+      }
+    },
+
+    /** Forgets a system's cached settings after they changed. */
+    settingsChanged(systemId: string) {
+      const runtime = runtimes.get(systemId);
+      if (runtime) runtime.loadedAt = 0;
+    },
+  };
+}
+
+export type LiveAnalytics = ReturnType<typeof createLiveAnalytics>;

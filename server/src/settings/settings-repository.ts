@@ -1,0 +1,116 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type {
+  ChargeSource,
+  FlagThresholdSettings,
+  SystemSettings,
+  UserPreferences,
+} from '@cellwarden/shared';
+
+/** A system's settings as stored; thresholds hold only what the owner overrode. */
+export interface StoredSettings extends Omit<SystemSettings, 'thresholds' | 'thresholdDefaults'> {
+  thresholds: Partial<FlagThresholdSettings>;
+}
+
+interface SettingsRow {
+  name: string;
+  kind: SystemSettings['kind'];
+  timeZone: string;
+  chemistry: SystemSettings['battery']['chemistry'];
+  nominalVoltage: 12 | 24 | 48;
+  ratedCapacityAh: number;
+  usableCapacityAh: number;
+  continuousDischargeA: number | null;
+  lowVoltageCutoffV: number | null;
+  chargeSources: ChargeSource[];
+  thresholds: Partial<FlagThresholdSettings>;
+}
+
+// Systems made before a BMS rating was recorded get a conservative 1C (common practice for LiFePO4 packs).
+const toSettings = (row: SettingsRow): StoredSettings => ({
+  name: row.name,
+  kind: row.kind,
+  timeZone: row.timeZone,
+  battery: {
+    chemistry: row.chemistry,
+    nominalVoltage: row.nominalVoltage,
+    ratedCapacityAh: row.ratedCapacityAh,
+    usableCapacityAh: row.usableCapacityAh,
+  },
+  bms: {
+    continuousDischargeA: row.continuousDischargeA ?? row.ratedCapacityAh,
+    lowVoltageCutoffV: row.lowVoltageCutoffV,
+  },
+  chargeSources: row.chargeSources,
+  thresholds: row.thresholds,
+});
+
+/** Data access for system settings and personal preferences. */
+export function createSettingsRepository(sequelize: Sequelize) {
+  return {
+    async find(systemId: string): Promise<StoredSettings | undefined> {
+      const [row] = await sequelize.query<SettingsRow>(
+        `SELECT name, kind, time_zone AS "timeZone", chemistry, nominal_voltage AS "nominalVoltage",
+           rated_capacity_ah AS "ratedCapacityAh", usable_capacity_ah AS "usableCapacityAh",
+           bms_continuous_discharge_a AS "continuousDischargeA", bms_low_voltage_cutoff_v AS "lowVoltageCutoffV",
+           charge_sources AS "chargeSources", flag_thresholds AS thresholds
+         FROM systems WHERE id = :systemId`,
+        { replacements: { systemId }, type: QueryTypes.SELECT },
+      );
+      return row && toSettings(row);
+    },
+
+    async update(systemId: string, settings: StoredSettings): Promise<void> {
+      await sequelize.query(
+        `UPDATE systems SET name = :name, kind = :kind, time_zone = :timeZone, chemistry = :chemistry,
+           nominal_voltage = :nominalVoltage, rated_capacity_ah = :ratedCapacityAh, usable_capacity_ah = :usableCapacityAh,
+           bms_continuous_discharge_a = :continuousDischargeA, bms_low_voltage_cutoff_v = :lowVoltageCutoffV,
+           charge_sources = :chargeSources::jsonb, flag_thresholds = :thresholds::jsonb, updated_at = now()
+         WHERE id = :systemId`,
+        {
+          replacements: {
+            systemId,
+            name: settings.name,
+            kind: settings.kind,
+            timeZone: settings.timeZone,
+            ...settings.battery,
+            continuousDischargeA: settings.bms.continuousDischargeA,
+            lowVoltageCutoffV: settings.bms.lowVoltageCutoffV,
+            chargeSources: JSON.stringify(settings.chargeSources),
+            thresholds: JSON.stringify(settings.thresholds),
+          },
+        },
+      );
+    },
+
+    async preferences(userId: string): Promise<UserPreferences> {
+      const [row] = await sequelize.query<UserPreferences>(
+        `SELECT temperature_unit AS "temperatureUnit", email_flags AS "emailFlags" FROM user_preferences WHERE user_id = :userId`,
+        { replacements: { userId }, type: QueryTypes.SELECT },
+      );
+      return row ?? { temperatureUnit: 'C', emailFlags: ['low-charge', 'cold-charging', 'device-silent'] };
+    },
+
+    async savePreferences(userId: string, preferences: UserPreferences): Promise<void> {
+      await sequelize.query(
+        `INSERT INTO user_preferences (user_id, temperature_unit, email_flags)
+         VALUES (:userId, :temperatureUnit, ARRAY[:emailFlags]::text[])
+         ON CONFLICT (user_id) DO UPDATE SET temperature_unit = excluded.temperature_unit,
+           email_flags = excluded.email_flags, updated_at = now()`,
+        {
+          replacements: {
+            userId,
+            temperatureUnit: preferences.temperatureUnit,
+            // ARRAY[] of nothing is untyped; an empty opt-in list is stored as such.
+            emailFlags: preferences.emailFlags.length > 0 ? preferences.emailFlags : [null],
+          },
+        },
+      );
+      if (preferences.emailFlags.length === 0)
+        await sequelize.query(`UPDATE user_preferences SET email_flags = '{}' WHERE user_id = :userId`, {
+          replacements: { userId },
+        });
+    },
+  };
+}
+
+export type SettingsRepository = ReturnType<typeof createSettingsRepository>;
