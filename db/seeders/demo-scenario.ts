@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import bcrypt from 'bcryptjs';
+import { SCENARIO_SUMMARIES } from '../../simulator/src/scenario-catalog';
 import demo from './demo-sign-ins.json';
 
 // An invented scenario: every person, company and place here is fictional.
@@ -18,26 +19,32 @@ export const DEMO_DEVICES = demo.devices as {
 }[];
 
 const COMPANY_NAME = 'Kestrel Hollow Vanfitters';
+// Each demo system is the battery its monitor's simulator scenario models, so history, live readings and
+// settings agree.
+const scenarioOf = (name: string) => SCENARIO_SUMMARIES.find((s) => s.name === name)!;
 const SYSTEMS = {
   van: {
     name: 'Winter van “Moth”',
     kind: 'van',
-    chemistry: 'lifepo4',
-    nominalVoltage: 12,
-    rated: 200,
-    usable: 190,
-    bms: 150,
+    scenario: scenarioOf('frost-night'),
+    timeZone: 'Europe/Helsinki',
   },
   cabin: {
     name: 'Lakeside cabin',
     kind: 'cabin',
-    chemistry: 'lifepo4',
-    nominalVoltage: 24,
-    rated: 280,
-    usable: 260,
-    bms: 200,
+    scenario: scenarioOf('flat-by-morning'),
+    timeZone: 'Europe/Oslo',
   },
 } as const;
+
+/** The systems the demo creates, keyed as in demo-sign-ins.json. */
+export const DEMO_SYSTEMS = SYSTEMS;
+
+const SOURCE_LABELS: Record<string, string> = {
+  shore: 'Shore-power charger',
+  solar: 'Roof solar',
+  'dc-dc': 'DC-DC charger',
+};
 
 /** Loads the demo scenario once; a second run finds it and changes nothing. */
 export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
@@ -64,12 +71,32 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
     }
     const systemIds: Record<string, string> = {};
     for (const device of DEMO_DEVICES) {
-      const system = SYSTEMS[device.system];
+      const { name, kind, scenario, timeZone } = SYSTEMS[device.system];
       const [row] = await q<{ id: string }>(
         `INSERT INTO systems (name, kind, chemistry, nominal_voltage, rated_capacity_ah, usable_capacity_ah,
-           bms_continuous_discharge_a, owner_id, installer_company_id)
-         VALUES (:name, :kind, :chemistry, :nominalVoltage, :rated, :usable, :bms, :ownerId, :companyId) RETURNING id`,
-        { ...system, ownerId: userIds[DEMO_USERS[0].email], companyId: company.id },
+           bms_continuous_discharge_a, owner_id, installer_company_id, time_zone, charge_sources)
+         VALUES (:name, :kind, :chemistry, :nominalVoltage, :rated, :usable, :bms, :ownerId, :companyId, :timeZone,
+           :chargeSources::jsonb) RETURNING id`,
+        {
+          name,
+          kind,
+          timeZone,
+          chemistry: scenario.chemistry,
+          nominalVoltage: scenario.nominalVoltage,
+          rated: scenario.ratedCapacityAh,
+          usable: Math.min(scenario.usableCapacityAh, scenario.ratedCapacityAh),
+          bms: 150,
+          ownerId: userIds[DEMO_USERS[0].email],
+          companyId: company.id,
+          chargeSources: JSON.stringify(
+            scenario.chargeSources.map((source) => ({
+              id: source.id,
+              kind: source.kind,
+              label: SOURCE_LABELS[source.kind] ?? source.id,
+              ratedCurrentA: source.ratedCurrent,
+            })),
+          ),
+        },
       );
       systemIds[device.system] = row.id;
       await q(

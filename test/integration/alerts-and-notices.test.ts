@@ -50,7 +50,7 @@ it('flags charging below 0 °C, pushes it live, e-mails the owner, and records i
   });
   const now = Date.now();
   // Two minutes of 15 A into a pack at −6 °C: past the flag's 30 s minimum duration.
-  const cold = series(25, now - 60_000, -6, 15);
+  const cold = series(25, now - 1_000_000, -6, 15);
   await device.publishAsync(readingsTopic(van.id), JSON.stringify(encodeReadingPack(van.id, cold)), {
     qos: 1,
   });
@@ -87,7 +87,8 @@ it('flags charging below 0 °C, pushes it live, e-mails the owner, and records i
   });
 
   // The pack warmed and the charger stopped: the flag ends and the end is e-mailed too.
-  const warm = series(20, now, 6, -2);
+  // Warm and discharging for longer than the flag's 15-minute release delay.
+  const warm = series(200, now, 6, -2);
   await device.publishAsync(readingsTopic(van.id), JSON.stringify(encodeReadingPack(van.id, warm)), {
     qos: 1,
   });

@@ -52,7 +52,8 @@ export function stepFlags(
   const context = { ...input, memory: previous.memory };
   for (const [kind, rule] of Object.entries(FLAG_RULES) as [FlagKind, FlagRule][]) {
     const minimumMs = settings.thresholds.minimumDurationSeconds[kind] * 1000;
-    const step = stepFlagTrack(kind, tracks[kind], rule(context), reading.measuredAt, minimumMs);
+    const releaseMs = (settings.thresholds.releaseDelaySeconds?.[kind] ?? 0) * 1000;
+    const step = stepFlagTrack(kind, tracks[kind], rule(context), reading.measuredAt, minimumMs, releaseMs);
     if (step.track === undefined) delete tracks[kind];
     else tracks[kind] = step.track;
     events.push(...step.events);

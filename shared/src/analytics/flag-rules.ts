@@ -129,10 +129,14 @@ const bmsCutoffSuspected: FlagRule = ({ reading, settings, memory }) => {
   };
 };
 
-const chargerUnderDelivering: FlagRule = ({ reading, settings }) => {
+// Above this state of charge a charger is expected to taper (absorption, float), so a low current is no fault.
+const BULK_CEILING_PERCENT = 90;
+
+const chargerUnderDelivering: FlagRule = ({ reading, settings, estimate }) => {
   const t = settings.thresholds;
   const blocks = settings.battery.nominalVoltage / 12;
   const bulk =
+    estimate.stateOfCharge < BULK_CEILING_PERCENT &&
     reading.voltage < (CHEMISTRY_PROFILES[settings.battery.chemistry].absorptionVoltage - 0.3) * blocks;
   const worst = weakestSource(reading, settings);
   const fraction = worst?.fraction ?? 1;

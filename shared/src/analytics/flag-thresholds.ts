@@ -37,6 +37,8 @@ export interface FlagThresholds {
   socDisagreementPoints: number;
   /** Seconds a condition must hold before its flag starts. */
   minimumDurationSeconds: Record<FlagKind, number>;
+  /** How long an active flag's condition must stay clear before the flag ends, per kind, seconds. */
+  releaseDelaySeconds?: Partial<Record<FlagKind, number>>;
 }
 
 /** Owner overrides: any threshold, and any subset of the minimum durations. */
@@ -57,6 +59,16 @@ const MINIMUM_DURATION_SECONDS: Record<FlagKind, number> = {
   // Chargers ramp up over minutes and DC-DC units derate when hot: only a sustained shortfall counts.
   'charger-under-delivering': 600,
   'soc-disagreement': 600,
+};
+
+// Conditions that lapse briefly in normal use (a load switching on, a cloud) must stay clear this long before
+// their flag ends, so one episode is one alert, not dozens (common practice for alarm deadbands).
+const RELEASE_DELAY_SECONDS: Partial<Record<FlagKind, number>> = {
+  'cold-charging': 900,
+  'cold-charge-ahead': 300,
+  'charger-under-delivering': 300,
+  'low-voltage': 120,
+  'over-discharge': 60,
 };
 
 /** Chemistry defaults for a bank; `ratedCapacityAh` (default 100) scales the current thresholds. */
@@ -90,6 +102,7 @@ export function defaultFlagThresholds(
     underDeliveryFraction: 0.5,
     socDisagreementPoints: 15,
     minimumDurationSeconds: { ...MINIMUM_DURATION_SECONDS },
+    releaseDelaySeconds: { ...RELEASE_DELAY_SECONDS },
   };
 }
 

@@ -12,11 +12,11 @@ function lowSignal(value: number): FlagSignal {
   };
 }
 
-function run(values: number[], minimumMs: number, stepMs = 10_000): FlagEvent[] {
+function run(values: number[], minimumMs: number, stepMs = 10_000, releaseMs = 0): FlagEvent[] {
   let track: FlagTrack | undefined;
   const events: FlagEvent[] = [];
   values.forEach((value, i) => {
-    const step = stepFlagTrack('low-charge', track, lowSignal(value), i * stepMs, minimumMs);
+    const step = stepFlagTrack('low-charge', track, lowSignal(value), i * stepMs, minimumMs, releaseMs);
     track = step.track;
     events.push(...step.events);
   });
@@ -24,6 +24,19 @@ function run(values: number[], minimumMs: number, stepMs = 10_000): FlagEvent[] 
 }
 
 describe('stepFlagTrack', () => {
+  it('keeps an active flag through a lapse shorter than the release delay', () => {
+    // Active, then clear for 30 s, then low again: with a 60 s release delay that is one episode.
+    const events = run([15, 15, 30, 30, 30, 15, 15], 0, 10_000, 60_000);
+    expect(events.map((e) => e.transition)).toEqual(['start']);
+  });
+
+  it('ends an active flag once its condition has stayed clear for the release delay', () => {
+    const events = run([15, 15, ...Array(8).fill(30)], 0, 10_000, 60_000);
+    expect(events.map((e) => e.transition)).toEqual(['start', 'end']);
+    // Clear from t = 20 s; the end is at the first reading 60 s later, t = 80 s.
+    expect(events[1].at).toBe(80_000);
+  });
+
   it('gives one start and one end for a value dithering around its threshold', () => {
     const dither = Array.from({ length: 100 }, (_, i) => (i % 2 === 0 ? 19.5 : 20.5));
     const events = run([30, ...dither, 30], 0);

@@ -27,6 +27,8 @@ export interface FlagTrack {
   unit: string;
   /** Since when a warning has been at the critical level, ms. */
   escalatingSince?: number;
+  /** Since when an active flag's condition has stopped holding (it ends after the release delay), ms. */
+  releasingSince?: number;
   sourceId?: string;
 }
 
@@ -37,6 +39,7 @@ export function stepFlagTrack(
   signal: FlagSignal,
   at: number,
   minimumDurationMs: number,
+  releaseDelayMs = 0,
 ): { track: FlagTrack | undefined; events: FlagEvent[] } {
   if (track === undefined) {
     if (signal.trigger === undefined) return { track: undefined, events: [] };
@@ -51,10 +54,14 @@ export function stepFlagTrack(
     return stepPending(kind, started, signal, at, minimumDurationMs);
   }
   if (!signal.holds) {
-    const events = track.phase === 'active' ? [eventOf(kind, 'end', track, signal, at)] : [];
-    return { track: undefined, events };
+    if (track.phase !== 'active') return { track: undefined, events: [] };
+    // A short lapse (a heater's start-up surge pulling the net current negative) does not end the flag.
+    const releasingSince = track.releasingSince ?? at;
+    if (at - releasingSince < releaseDelayMs) return { track: { ...track, releasingSince }, events: [] };
+    return { track: undefined, events: [eventOf(kind, 'end', track, signal, at)] };
   }
   const updated: FlagTrack = { ...track, peak: worseOf(track.peak, signal.value, signal.worse) };
+  delete updated.releasingSince;
   if (signal.sourceId !== undefined) updated.sourceId = signal.sourceId;
   if (updated.phase === 'pending') return stepPending(kind, updated, signal, at, minimumDurationMs);
   return stepEscalation(kind, updated, signal, at, minimumDurationMs);

@@ -1,0 +1,112 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
+import { join } from 'node:path';
+
+const projectRoot = join(__dirname, '..', '..');
+
+/** A port that was free a moment ago on loopback; fixed ports let a device reconnect after a restart. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as { port: number };
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
+/** Options of a server run as its own process. */
+export interface ProcessServerOptions {
+  databaseUrl: string;
+  httpPort: number;
+  mqttPort: number;
+  env?: Record<string, string>;
+}
+
+/**
+ * The real `server/src/main.ts` in a child process, restartable on the same ports. It runs in its own
+ * process group because tsx starts node as a grandchild: a SIGKILL must reach the whole group.
+ */
+export function createProcessServer(options: ProcessServerOptions) {
+  let child: ChildProcess | undefined;
+  let exited: Promise<void> = Promise.resolve();
+  let output = '';
+  const baseUrl = `http://127.0.0.1:${options.httpPort}`;
+
+  function start(): void {
+    if (child) throw new Error('server process already running');
+    const started = spawn(join(projectRoot, 'node_modules/.bin/tsx'), ['server/src/main.ts'], {
+      cwd: projectRoot,
+      detached: true,
+      stdio: ['ignore', 'pipe', 'pipe'],
+      env: {
+        ...process.env,
+        DATABASE_URL: options.databaseUrl,
+        HOST: '127.0.0.1',
+        PORT: String(options.httpPort),
+        MQTT_PORT: String(options.mqttPort),
+        WEB_DIST: '',
+        LOG_LEVEL: 'warn',
+        ...options.env,
+      },
+    });
+    const keep = (chunk: Buffer) => (output = (output + chunk.toString()).slice(-20000));
+    started.stdout!.on('data', keep);
+    started.stderr!.on('data', keep);
+    exited = new Promise((resolve) =>
+      started.once('exit', () => {
+        if (child === started) child = undefined;
+        resolve();
+      }),
+    );
+    child = started;
+  }
+
+  async function signalGroup(signal: NodeJS.Signals): Promise<void> {
+    const running = child;
+    if (!running?.pid) return;
+    try {
+      process.kill(-running.pid, signal);
+    } catch {
+      // Already gone: nothing to signal.
+    }
+    await exited;
+    child = undefined;
+  }
+
+  return {
+    baseUrl,
+    mqttUrl: `mqtt://127.0.0.1:${options.mqttPort}`,
+    start,
+    /** Resolves once GET /api/health answers at all (200 or 503), or fails with the process's output. */
+    async ready(timeoutMs = 30000): Promise<void> {
+      const deadline = Date.now() + timeoutMs;
+      while (Date.now() < deadline) {
+        if (!child) throw new Error(`server process exited:\n${output}`);
+        const status = await healthStatus(baseUrl);
+        if (status !== 0) return;
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+      throw new Error(`server process not ready in ${timeoutMs} ms:\n${output}`);
+    },
+    /** kill -9: no shutdown hooks run, nothing in memory survives. */
+    kill: () => signalGroup('SIGKILL'),
+    /** A graceful stop (SIGTERM), as a service manager would. */
+    stop: () => signalGroup('SIGTERM'),
+    output: () => output,
+  };
+}
+
+/** The status GET /api/health answers with, or 0 when nothing answers. */
+export async function healthStatus(baseUrl: string): Promise<number> {
+  try {
+    const response = await fetch(`${baseUrl}/api/health`, { signal: AbortSignal.timeout(2000) });
+    await response.arrayBuffer();
+    return response.status;
+  } catch {
+    return 0;
+  }
+}
+
+export type ProcessServer = ReturnType<typeof createProcessServer>;
