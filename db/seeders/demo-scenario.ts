@@ -91,7 +91,7 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
           chargeSources: JSON.stringify(
             scenario.chargeSources.map((source) => ({
               id: source.id,
-              kind: source.kind,
+              kind: source.kind === 'dcdc' ? 'dc-dc' : source.kind,
               label: SOURCE_LABELS[source.kind] ?? source.id,
               ratedCurrentA: source.ratedCurrent,
             })),

@@ -53,7 +53,13 @@ async function start() {
     console.log(`PostgreSQL ${alreadyRunning ? 'already running' : 'started'} on 127.0.0.1:${cluster.port}`);
     ensureDatabase(cluster, 'cellwarden');
   }
-  runStep('database preparation', bin('tsx'), ['db/prepare-database.ts', databaseUrl, '--seed']);
+  runStep('database preparation', bin('tsx'), [
+    'db/prepare-database.ts',
+    databaseUrl,
+    '--seed',
+    '--history-days',
+    '7',
+  ]);
   ensureWebBuild();
 
   const serverEnv = {

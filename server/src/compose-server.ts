@@ -15,6 +15,14 @@ import { createAlertsRoutes } from './alerts/alerts-routes';
 import { createAlertsService } from './alerts/alerts-service';
 import { createLiveAnalytics } from './alerts/live-analytics';
 import { createApp } from './app';
+import { createCommissioningRecordService } from './installer/commissioning-record-service';
+import { createCommissioningRepository } from './installer/commissioning-repository';
+import { createCommissioningService } from './installer/commissioning-service';
+import { createEnergyBudgetsService } from './installer/energy-budgets-service';
+import { createInstallerRoutes } from './installer/installer-routes';
+import { createUploadsRepository } from './installer/uploads-repository';
+import { createUploadsService } from './installer/uploads-service';
+import { createUploadStorage } from './uploads/upload-storage';
 import { createAuditRepository } from './audit/audit-repository';
 import { createAuditService } from './audit/audit-service';
 import { createBrokerPolicy } from './broker/broker-policy';
@@ -133,6 +141,39 @@ export async function startServer(
     analytics.sweepSilence().catch((error) => logger.warn('silence check failed', { error: String(error) }));
   }, config.SILENCE_CHECK_SECONDS * 1000);
   silenceSweep.unref();
+  const commissioningRepository = createCommissioningRepository(sequelize);
+  await commissioningRepository.abandonRunning();
+  const checks = createCommissioningService({
+    repository: commissioningRepository,
+    settings: settingsRepository,
+    systems,
+    audit,
+    logger,
+    now,
+  });
+  const uploadStorage = createUploadStorage({ root: config.UPLOAD_DIR });
+  const uploads = createUploadsService({
+    repository: createUploadsRepository(sequelize),
+    storage: uploadStorage,
+    systems,
+    audit,
+  });
+  const installerRoutes = createInstallerRoutes({
+    checks,
+    uploads,
+    uploadMiddleware: uploadStorage.middleware(),
+    record: createCommissioningRecordService({
+      systems,
+      settings: settingsRepository,
+      checks: commissioningRepository,
+      uploads,
+      accounts: accountsRepository,
+      mailer,
+      audit,
+      now,
+    }),
+    budgets: createEnergyBudgetsService({ sequelize, systems, readings: readingsRepository, now }),
+  });
   const devicesRepository = createDevicesRepository(sequelize);
   const writer = createBatchWriter({
     repository: readingsRepository,
@@ -143,6 +184,7 @@ export async function startServer(
     onStored: (rows) => {
       const lastSeen = new Map<string, number>();
       const receivedAt = now();
+      for (const { systemId, reading } of rows) checks.onReading(systemId, reading);
       for (const { deviceId, reading } of rows)
         lastSeen.set(deviceId, Math.max(lastSeen.get(deviceId) ?? 0, reading.measuredAt));
       // Readings go live with what the analytics made of them; the order within each system is kept.
@@ -198,7 +240,11 @@ export async function startServer(
     readings,
     ingest,
     signedInRouters,
-    systemRouters: [createAlertsRoutes({ alerts, systems, analytics }), createSettingsRoutes(settings)],
+    systemRouters: [
+      createAlertsRoutes({ alerts, systems, analytics }),
+      createSettingsRoutes(settings),
+      installerRoutes,
+    ],
     corsOrigins: config.CORS_ORIGINS.split(',')
       .map((o) => o.trim())
       .filter(Boolean),
@@ -223,6 +269,7 @@ export async function startServer(
     mailCatcher,
     async stop() {
       clearInterval(silenceSweep);
+      checks.close();
       stream.close();
       await new Promise<void>((resolve) => http.close(() => resolve()));
       http.closeAllConnections();

@@ -8,6 +8,8 @@ import { createTestDatabase } from '../support/test-database';
 import { until } from '../support/http-session';
 import { compareDelivery, createDeliveryLedger, runSimulatedDevice, storedTimes } from './delivery-ledger';
 
+jest.setTimeout(120000);
+
 const cabin = DEMO_DEVICES.find((d) => d.system === 'cabin')!;
 const INTERVAL_SECONDS = 5;
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));

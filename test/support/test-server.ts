@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { loadConfig } from '../../server/src/config';
 import { startServer, type RunningServer } from '../../server/src/compose-server';
 import { connectDatabase } from '../../server/src/database/connect-database';
@@ -11,12 +14,14 @@ export async function startTestServer(options: { webDist?: string; env?: Record<
   const seeding = connectDatabase(database.url);
   await seedDemoScenario(seeding);
   const logger = createMemoryLogger();
+  const uploadDir = mkdtempSync(join(tmpdir(), 'cw-uploads-'));
   const config = loadConfig({
     DATABASE_URL: database.url,
     PORT: '0',
     MQTT_PORT: '0',
     WEB_DIST: options.webDist ?? '',
     INGEST_FLUSH_MS: '50',
+    UPLOAD_DIR: uploadDir,
     ...options.env,
   });
   const server: RunningServer = await startServer(config, logger);
@@ -31,6 +36,7 @@ export async function startTestServer(options: { webDist?: string; env?: Record<
       await server.stop();
       await seeding.close();
       await database.drop();
+      rmSync(uploadDir, { recursive: true, force: true });
     },
   };
 }

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { AnalyticsSettingError, InstallerInputError } from '@cellwarden/shared';
 import { AppError } from './app-error';
 import type { Logger } from '../logger';
 
@@ -22,6 +23,9 @@ function toAppError(error: unknown): AppError {
     const field = issue.path.join('.') || undefined;
     return new AppError('invalid_input', 400, field ? `${field}: ${issue.message}` : issue.message, field);
   }
+  // The shared computations validate their own inputs and name the field; that is the caller's bad input.
+  if (error instanceof InstallerInputError || error instanceof AnalyticsSettingError)
+    return new AppError('invalid_input', 400, error.message, error.field);
   const bodyError = error as { type?: string; status?: number; message?: string };
   if (bodyError?.type === 'entity.parse.failed')
     return new AppError('malformed_json', 400, 'Request body is not valid JSON');

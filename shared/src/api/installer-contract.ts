@@ -47,3 +47,20 @@ export interface UploadListing {
   caption: string;
 }
 // GET /api/systems/:id/commissioning-record.pdf downloads the record; POST .../commissioning-record/email sends it to the owner.
+
+/** A saved energy budget of a system (GET/POST /api/systems/:id/energy-budgets, PUT/DELETE .../:budgetId). */
+export interface SavedEnergyBudget {
+  id: string;
+  name: string;
+  budget: import('../installer/energy-budget-input').EnergyBudgetInput;
+  createdAt: number;
+  updatedAt: number;
+}
+
+/** GET /api/systems/:id/energy-budgets/:budgetId/comparison?days=7: the budget against what the system did. */
+export interface EnergyBudgetComparison {
+  budget: import('../installer/energy-budget').EnergyBudget;
+  days: number;
+  measured: { whIn: number; whOut: number; perDay: { day: string; whIn: number; whOut: number }[] };
+  comparison: import('../installer/budget-comparison').BudgetComparison;
+}
