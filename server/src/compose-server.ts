@@ -46,6 +46,8 @@ import { createSystemsRepository } from './systems/systems-repository';
 import { createSystemsService } from './systems/systems-service';
 import { createReadingsHub } from './telemetry/readings-hub';
 import { createReadingsRepository } from './telemetry/readings-repository';
+import { createReadingsCsvRoutes } from './telemetry/readings-csv-routes';
+import { createReadingsCsvService } from './telemetry/readings-csv-service';
 import { createReadingsService } from './telemetry/readings-service';
 import { migrateToLatest } from '../../db/migrator';
 import { Router } from 'express';
@@ -241,6 +243,9 @@ export async function startServer(
     ingest,
     signedInRouters,
     systemRouters: [
+      createReadingsCsvRoutes(
+        createReadingsCsvService({ systems, repository: readingsRepository, audit, now }),
+      ),
       createAlertsRoutes({ alerts, systems, analytics }),
       createSettingsRoutes(settings),
       installerRoutes,

@@ -35,6 +35,13 @@ export { resolvePack } from './senml/resolve-pack';
 export { MAX_READING_PAYLOAD_BYTES } from './senml/reading-measurement';
 export { encodeReadingPack, decodeReadingPack, parseReadingPayload } from './senml/reading-pack';
 export type { ApiErrorBody, HistoryPoint, ReceivedReading, SystemSummary } from './api/api-contract';
+export {
+  READINGS_CSV_HEADER,
+  ReadingsCsvError,
+  readingToCsvRecord,
+  checkReadingsCsvHeader,
+  csvRecordToReading,
+} from './telemetry/readings-csv';
 export * from './analytics/index';
 export * from './installer/index';
 export type * from './api/accounts-contract';

@@ -83,7 +83,12 @@ export function createInstallerRoutes(deps: {
     res.status(202).json({ sentTo: await deps.record.emailToOwner(req.currentUser!, req.params.systemId) });
   });
   router.post('/:systemId/uploads', deps.uploadMiddleware, async (req, res) => {
-    const upload = await deps.uploads.add(req.currentUser!, String(req.params.systemId), req.file, req.body ?? {});
+    const upload = await deps.uploads.add(
+      req.currentUser!,
+      String(req.params.systemId),
+      req.file,
+      req.body ?? {},
+    );
     res.status(201).json({ upload });
   });
   router.get('/:systemId/uploads', async (req, res) => {
@@ -103,16 +108,14 @@ export function createInstallerRoutes(deps: {
   });
   router.post('/:systemId/energy-budgets', async (req, res) => {
     const body = budgetBody.parse(req.body ?? {});
-    res
-      .status(201)
-      .json({
-        budget: await deps.budgets.save(
-          req.currentUser!,
-          req.params.systemId,
-          body.name,
-          body.budget as unknown as EnergyBudgetInput,
-        ),
-      });
+    res.status(201).json({
+      budget: await deps.budgets.save(
+        req.currentUser!,
+        req.params.systemId,
+        body.name,
+        body.budget as unknown as EnergyBudgetInput,
+      ),
+    });
   });
   router.put('/:systemId/energy-budgets/:budgetId', async (req, res) => {
     const body = budgetBody.parse(req.body ?? {});

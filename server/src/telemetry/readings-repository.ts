@@ -115,6 +115,23 @@ export function createReadingsRepository(sequelize: Sequelize) {
       );
     },
 
+    /** Raw readings of one system in [from, to), oldest first. */
+    listRaw: (systemId: string, from: Date, to: Date) =>
+      sequelize
+        .query<BatteryReading>(
+          `SELECT (extract(epoch FROM measured_at) * 1000)::float8 AS "measuredAt", voltage, current, temperature,
+           state_of_charge AS "stateOfCharge", power
+         FROM readings WHERE system_id = :systemId AND measured_at >= :from AND measured_at < :to ORDER BY measured_at`,
+          { replacements: { systemId, from, to }, type: QueryTypes.SELECT },
+        )
+        .then((rows) =>
+          rows.map((r) => {
+            if (r.stateOfCharge === null) delete r.stateOfCharge;
+            if (r.power === null) delete r.power;
+            return r;
+          }),
+        ),
+
     /** Energy in and out per day (UTC) over [from, to), from the hour rollups. */
     async dailyEnergy(systemId: string, from: Date, to: Date) {
       return sequelize.query<{ day: string; ahIn: number; ahOut: number; whIn: number; whOut: number }>(
