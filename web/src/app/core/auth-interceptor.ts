@@ -23,7 +23,8 @@ export const authInterceptor: HttpInterceptorFn = (request, next) => {
       return token$.pipe(
         switchMap((token) => {
           if (!token) {
-            auth.endSession(router.url);
+            // Refused: the session is over. Unreachable: keep it and let the screen show the error.
+            if (!auth.isSignedIn()) auth.endSession(router.url);
             return throwError(() => error);
           }
           return next(withBearer(request, token)).pipe(

@@ -1,8 +1,13 @@
-import { HttpClient } from '@angular/common/http';
-import { Injectable, computed, inject, signal } from '@angular/core';
+import { HttpClient, HttpErrorResponse } from '@angular/common/http';
+import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Router } from '@angular/router';
 import type { InvitationAcceptance, PublicUser, Role, SessionResponse } from '@cellwarden/shared';
 import { Observable, catchError, finalize, map, of, shareReplay, tap } from 'rxjs';
+
+/** How long before the access token expires it is renewed, s. */
+const RENEW_BEFORE_EXPIRY_S = 60;
+/** Never renew sooner than this after a session arrives, so a short-lived token cannot cause a request storm. */
+const RENEW_AT_LEAST_AFTER_MS = 10_000;
 
 /**
  * The signed-in session. The access token lives only in memory; the refresh token is an httpOnly cookie
@@ -15,6 +20,11 @@ export class Auth {
   private readonly session = signal<SessionResponse | null>(null);
   private refreshInFlight: Observable<string | null> | null = null;
   private restoreAttempted = false;
+  private renewal: ReturnType<typeof setTimeout> | undefined;
+
+  constructor() {
+    inject(DestroyRef).onDestroy(() => clearTimeout(this.renewal));
+  }
 
   /** The signed-in user, or null. */
   readonly currentUser = computed<PublicUser | null>(() => this.session()?.user ?? null);
@@ -33,26 +43,27 @@ export class Auth {
   signIn(email: string, password: string): Observable<SessionResponse> {
     return this.http
       .post<SessionResponse>('/api/auth/sign-in', { email, password })
-      .pipe(tap((response) => this.session.set(response)));
+      .pipe(tap((response) => this.keep(response)));
   }
 
   /** Accepts an invitation; the answer is a session, so the new member is signed in at once. */
   acceptInvitation(acceptance: InvitationAcceptance): Observable<SessionResponse> {
     return this.http
       .post<SessionResponse>('/api/auth/invitations/accept', acceptance)
-      .pipe(tap((response) => this.session.set(response)));
+      .pipe(tap((response) => this.keep(response)));
   }
 
   /**
    * Asks for a new access token with the refresh cookie. Parallel callers share one request; the
-   * observable emits the new token, or null when the server refuses (the session is then dropped).
+   * observable emits the new token, or null when it failed (a refusal also drops the session).
    */
   refresh(): Observable<string | null> {
     this.refreshInFlight ??= this.http.post<SessionResponse>('/api/auth/refresh', {}).pipe(
-      tap((response) => this.session.set(response)),
+      tap((response) => this.keep(response)),
       map((response) => response.accessToken),
-      catchError(() => {
-        this.session.set(null);
+      catchError((error: unknown) => {
+        // Only a refusal ends the session; a dropped connection on a van's mobile link should not.
+        if (error instanceof HttpErrorResponse && error.status >= 400 && error.status < 500) this.forget();
         return of(null);
       }),
       finalize(() => (this.refreshInFlight = null)),
@@ -77,8 +88,24 @@ export class Auth {
 
   /** Forgets the session without asking the server and goes to sign-in, coming back to `returnUrl`. */
   endSession(returnUrl?: string): void {
-    this.session.set(null);
+    this.forget();
     const keep = returnUrl && !returnUrl.startsWith('/sign-in') && returnUrl !== '/';
     void this.router.navigate(['/sign-in'], keep ? { queryParams: { returnUrl } } : {});
+  }
+
+  /**
+   * Holds the session and renews the token a minute before it expires, so the live stream can reconnect
+   * with a valid token even when no HTTP call has met a 401.
+   */
+  private keep(response: SessionResponse): void {
+    this.session.set(response);
+    clearTimeout(this.renewal);
+    const renewInMs = Math.max(RENEW_AT_LEAST_AFTER_MS, (response.expiresIn - RENEW_BEFORE_EXPIRY_S) * 1000);
+    this.renewal = setTimeout(() => this.refresh().subscribe(), renewInMs);
+  }
+
+  private forget(): void {
+    clearTimeout(this.renewal);
+    this.session.set(null);
   }
 }

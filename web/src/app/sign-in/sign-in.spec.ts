@@ -5,7 +5,7 @@ import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
-import { provideRouter } from '@angular/router';
+import { Router, provideRouter } from '@angular/router';
 import { SignIn } from './sign-in';
 
 describe('SignIn', () => {
@@ -58,5 +58,43 @@ describe('SignIn', () => {
     expect(fixture.nativeElement.querySelector('[role="alert"]').textContent).toContain(
       'E-mail or password is wrong.',
     );
+  });
+
+  it('goes back to the return URL after signing in', async () => {
+    const { fixture, loader, http } = await setup();
+    fixture.componentRef.setInput('returnUrl', '/systems/s1/access');
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName="email"]' }))
+    ).setValue('ana@example.com');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName="password"]' }))
+    ).setValue('secret-secret');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Sign in' }))).click();
+    http.expectOne('/api/auth/sign-in').flush({
+      accessToken: 'tok-1',
+      expiresIn: 900,
+      user: { id: 'u1', email: 'ana@example.com', displayName: 'Ana', roles: ['owner'], companyId: null },
+    });
+    expect(navigate).toHaveBeenCalledWith('/systems/s1/access');
+  });
+
+  it('ignores a return URL that leaves the app', async () => {
+    const { fixture, loader, http } = await setup();
+    fixture.componentRef.setInput('returnUrl', '//elsewhere.example/phish');
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName="email"]' }))
+    ).setValue('ana@example.com');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName="password"]' }))
+    ).setValue('secret-secret');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Sign in' }))).click();
+    http.expectOne('/api/auth/sign-in').flush({
+      accessToken: 'tok-1',
+      expiresIn: 900,
+      user: { id: 'u1', email: 'ana@example.com', displayName: 'Ana', roles: ['owner'], companyId: null },
+    });
+    expect(navigate).toHaveBeenCalledWith('/systems');
   });
 });

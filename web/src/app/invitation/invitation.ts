@@ -1,0 +1,95 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { Router, RouterLink } from '@angular/router';
+import type { InvitationPreview } from '@cellwarden/shared';
+import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import { Auth } from '../core/auth';
+import { PASSWORD_MIN, passwordPair, passwordsMatch } from '../password-reset/password-rules';
+import { serverErrorOf, showServerError } from '../sign-in/server-error';
+import { InvitationApi } from './invitation-api';
+import { roleLabel } from './role-label';
+
+type PreviewState =
+  | { status: 'loading' }
+  | { status: 'error'; message: string }
+  | { status: 'loaded'; invitation: InvitationPreview };
+
+/** Accepting an invitation (route /invitation/:token): shows what it is for, then name and password. */
+@Component({
+  selector: 'cw-invitation',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatProgressSpinnerModule,
+    RouterLink,
+    DatePipe,
+  ],
+  templateUrl: './invitation.html',
+  styleUrl: '../password-reset/password-reset.scss',
+})
+export class Invitation {
+  private readonly api = inject(InvitationApi);
+  private readonly auth = inject(Auth);
+  private readonly router = inject(Router);
+  private readonly fb = inject(FormBuilder);
+
+  /** The token from the invitation e-mail. */
+  readonly token = input.required<string>();
+
+  protected readonly minLength = PASSWORD_MIN;
+  protected readonly roleLabel = roleLabel;
+  protected readonly preview = toSignal(
+    toObservable(this.token).pipe(
+      switchMap((token) =>
+        this.api.preview(token).pipe(
+          map((invitation): PreviewState => ({ status: 'loaded', invitation })),
+          catchError((error: unknown) =>
+            of<PreviewState>({
+              status: 'error',
+              message: serverErrorOf(
+                error,
+                'This invitation cannot be opened. It may have expired or been used.',
+              ).message,
+            }),
+          ),
+          startWith<PreviewState>({ status: 'loading' }),
+        ),
+      ),
+    ),
+    { initialValue: { status: 'loading' } as PreviewState },
+  );
+  protected readonly form = this.fb.nonNullable.group(
+    { displayName: ['', [Validators.required, Validators.maxLength(100)]], ...passwordPair(this.fb) },
+    { validators: passwordsMatch },
+  );
+  protected readonly submitting = signal(false);
+  protected readonly serverError = signal<string | null>(null);
+
+  protected accept(): void {
+    this.serverError.set(null);
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const { displayName, password } = this.form.getRawValue();
+    this.submitting.set(true);
+    this.auth.acceptInvitation({ token: this.token(), displayName: displayName.trim(), password }).subscribe({
+      next: () => void this.router.navigate(['/systems']),
+      error: (error: unknown) => {
+        this.submitting.set(false);
+        this.serverError.set(
+          showServerError(this.form, serverErrorOf(error, 'Accepting failed. Try again.')),
+        );
+      },
+    });
+  }
+}
