@@ -53,6 +53,7 @@ function main() {
       `${base}/${TEMPLATE_DATABASE}`,
     ]);
     runStep('format check', bin('prettier'), ['--check', '--log-level', 'warn', '.']);
+    runStep('lint', bin('eslint'), ['.']);
     runStep('type check', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']);
     ensureWebBuild();
     try {

@@ -1,5 +1,6 @@
 // C0 and C1 controls (CR, LF, TAB, NUL, ESC ...), DEL, line/paragraph separators and the invisible
 // bidirectional/zero-width marks that can disguise a name (e.g. U+202E reversing "gpj.exe").
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f-\u009f\u200b-\u200f\u2028-\u202e\u2066-\u2069\ufeff]+/g;
 
 /** True when `text` holds any character `stripControlCharacters` would remove. */
