@@ -33,6 +33,8 @@ export default tseslint.config(
   {
     files: ['web/**/*.html'],
     extends: [...angular.configs.templateRecommended, ...angular.configs.templateAccessibility],
+    // `x != null` is the one idiom that tests for both null and undefined in a template.
+    rules: { '@angular-eslint/template/eqeqeq': ['error', { allowNullOrUndefined: true }] },
   },
   {
     files: ['**/*.mjs', '**/*.js'],

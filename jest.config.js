@@ -38,7 +38,11 @@ module.exports = {
       testMatch: ['**/*.spec.ts'],
     },
     nodeProject('integration', ['<rootDir>/test/integration'], { testMatch: ['**/*.test.ts'] }),
-    nodeProject('reliability', ['<rootDir>/test/reliability'], { testMatch: ['**/*.test.ts'], testTimeout: 120000 }),
+    nodeProject('reliability', ['<rootDir>/test/reliability'], {
+      testMatch: ['**/*.test.ts'],
+      testTimeout: 120000,
+    }),
+    nodeProject('cluster', ['<rootDir>/test/cluster'], { testMatch: ['**/*.test.ts'], testTimeout: 120000 }),
     nodeProject('browser', ['<rootDir>/test/browser'], { testMatch: ['**/*.test.ts'] }),
   ],
 };

@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import demo from '../../db/seeders/demo-sign-ins.json';
 import { createReadingsRepository } from '../../server/src/telemetry/readings-repository';
@@ -51,11 +52,11 @@ it('imports a CSV of readings and exports them back, once each', async () => {
   expect(rows).toHaveLength(121);
   expect(rows[1]).toBe(`${new Date(start).toISOString()},26.4,-3.2,18.5,55,-84.5`);
   // The one minute rollup of the import counted its reading (rollups follow imports as they follow ingest).
-  const [rollup] = await node.database.query(
+  const [rollup] = await node.database.query<{ n: number }>(
     `SELECT sum(reading_count)::int AS n FROM rollups_1m WHERE system_id = :cabinId`,
-    { replacements: { cabinId }, plain: false, type: 'SELECT' as never },
+    { replacements: { cabinId }, type: QueryTypes.SELECT },
   );
-  expect((rollup as { n: number }).n).toBe(120);
+  expect(rollup.n).toBe(120);
 });
 
 it('stores nothing from a file with one bad row, and says which line and column', async () => {

@@ -37,11 +37,9 @@ export function createReadingsCsvRoutes(csv: ReadingsCsvService): Router {
     express.text({ type: ['text/csv', 'text/plain'], limit: '16mb' }),
     async (req, res) => {
       if (typeof req.body !== 'string') {
-        res
-          .status(415)
-          .json({
-            error: { code: 'unsupported_media_type', message: 'Send the CSV as text/csv', field: 'file' },
-          });
+        res.status(415).json({
+          error: { code: 'unsupported_media_type', message: 'Send the CSV as text/csv', field: 'file' },
+        });
         return;
       }
       res.json({ import: await csv.import(req.currentUser!, String(req.params.systemId), req.body) });

@@ -1,5 +1,6 @@
 import { Routes } from '@angular/router';
 import { authGuard } from './core/auth-guard';
+import { roleGuard } from './core/role-guard';
 
 export const routes: Routes = [
   {
@@ -18,6 +19,75 @@ export const routes: Routes = [
     title: 'Live · Cellwarden',
     canActivate: [authGuard],
     loadComponent: () => import('./live/live').then((m) => m.Live),
+  },
+  {
+    path: 'systems/:id/history',
+    title: 'History · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./history/history').then((m) => m.History),
+  },
+  {
+    path: 'systems/:id/alerts',
+    title: 'Alerts · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./alerts/alerts').then((m) => m.Alerts),
+  },
+  {
+    path: 'systems/:id/settings',
+    title: 'System settings · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./settings/settings').then((m) => m.Settings),
+  },
+  {
+    path: 'systems/:id/access',
+    title: 'Access and devices · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./access/access').then((m) => m.Access),
+  },
+  {
+    path: 'systems/:id/commissioning',
+    title: 'Commissioning · Cellwarden',
+    canActivate: [roleGuard(['installer', 'admin', 'owner'])],
+    loadComponent: () => import('./installer/commissioning/commissioning').then((m) => m.Commissioning),
+  },
+  {
+    path: 'shared-with-me',
+    title: 'Shared with me · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./received-access/received-access').then((m) => m.ReceivedAccess),
+  },
+  {
+    path: 'installer',
+    title: 'Installer tools · Cellwarden',
+    canActivate: [roleGuard(['installer', 'admin'])],
+    loadComponent: () => import('./installer/installer').then((m) => m.Installer),
+  },
+  {
+    path: 'team',
+    title: 'Team · Cellwarden',
+    canActivate: [roleGuard(['admin'])],
+    loadComponent: () => import('./team/team').then((m) => m.Team),
+  },
+  {
+    path: 'mail-outbox',
+    title: 'Mail outbox · Cellwarden',
+    canActivate: [roleGuard(['admin'])],
+    loadComponent: () => import('./mail-outbox/mail-outbox').then((m) => m.MailOutbox),
+  },
+  {
+    path: 'invitation/:token',
+    title: 'Accept invitation · Cellwarden',
+    loadComponent: () => import('./invitation/invitation').then((m) => m.Invitation),
+  },
+  {
+    path: 'password-reset',
+    title: 'Reset password · Cellwarden',
+    loadComponent: () => import('./password-reset/password-reset').then((m) => m.PasswordReset),
+  },
+  {
+    path: 'password-reset/:token',
+    title: 'Set a new password · Cellwarden',
+    loadComponent: () => import('./password-reset/new-password/new-password').then((m) => m.NewPassword),
   },
   { path: '', pathMatch: 'full', redirectTo: 'systems' },
   { path: '**', redirectTo: 'systems' },

@@ -16,7 +16,8 @@ export function apiProblem(error: unknown): ApiProblem {
     return { status: 0, code: 'unexpected', message: 'Something went wrong. Try again.' };
   }
   const body = (error.error as Partial<ApiErrorBody> | null)?.error;
-  if (body?.message) return { status: error.status, code: body.code, message: body.message, field: body.field };
+  if (body?.message)
+    return { status: error.status, code: body.code, message: body.message, field: body.field };
   const message =
     error.status === 0
       ? 'The server could not be reached. Check the connection and try again.'

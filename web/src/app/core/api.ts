@@ -42,7 +42,9 @@ export class Api {
 
   /** The latest reading, the derived state and the active alerts of one system. */
   status(id: string): Observable<SystemStatus> {
-    return this.http.get<{ status: SystemStatus }>(systemPath(id, '/status')).pipe(map((body) => body.status));
+    return this.http
+      .get<{ status: SystemStatus }>(systemPath(id, '/status'))
+      .pipe(map((body) => body.status));
   }
 
   /** Stored readings of one system between two instants, downsampled by the server. */

@@ -87,6 +87,71 @@ describe('LiveStream', () => {
     expect(sockets).toHaveLength(3);
   });
 
+  it('hands a system its alerts and the end of its access, and nothing of other systems', () => {
+    const stream = TestBed.inject(LiveStream);
+    const events: string[] = [];
+    stream.events('van-1').subscribe((e) => events.push(e.type));
+    sockets[0].open();
+    const alert = {
+      id: 'a1',
+      systemId: 'van-1',
+      kind: 'low-charge',
+      severity: 'warning',
+      startedAt: 1,
+      endedAt: null,
+    };
+    sockets[0].receive({ type: 'alert', systemId: 'van-1', alert });
+    sockets[0].receive({ type: 'alert', systemId: 'boat-1', alert: { ...alert, systemId: 'boat-1' } });
+    sockets[0].receive({ type: 'access-ended', systemIds: ['boat-1'] });
+    sockets[0].receive({ type: 'access-ended', systemIds: ['van-1', 'boat-1'] });
+    expect(events).toEqual(['alert', 'access-ended']);
+  });
+
+  it('passes the derived state along with each reading', () => {
+    const stream = TestBed.inject(LiveStream);
+    const derived: unknown[] = [];
+    stream.events('van-1').subscribe((e) => e.type === 'reading' && derived.push(e.derived));
+    sockets[0].open();
+    const reading = { measuredAt: 1, receivedAt: 1, voltage: 13, current: 1, temperature: 20 };
+    sockets[0].receive({ type: 'reading', systemId: 'van-1', reading, derived: { hoursToEmpty: 12 } });
+    sockets[0].receive({ type: 'reading', systemId: 'van-1', reading });
+    expect(derived).toEqual([{ hoursToEmpty: 12 }, null]);
+  });
+
+  it('reports server errors on the stream with their code', () => {
+    const stream = TestBed.inject(LiveStream);
+    const errors: unknown[] = [];
+    stream.streamErrors$.subscribe((e) => errors.push(e));
+    stream.readings('van-1').subscribe();
+    sockets[0].open();
+    sockets[0].receive({ type: 'error', code: 'forbidden', message: 'No access to van-1' });
+    expect(errors).toEqual([{ code: 'forbidden', message: 'No access to van-1' }]);
+  });
+
+  it('tells the server once the last watcher of a system leaves', () => {
+    const stream = TestBed.inject(LiveStream);
+    stream.readings('boat-1').subscribe();
+    const first = stream.readings('van-1').subscribe();
+    const second = stream.readings('van-1').subscribe();
+    sockets[0].open();
+    first.unsubscribe();
+    expect(sockets[0].sent).not.toContainEqual({ type: 'unsubscribe', systemIds: ['van-1'] });
+    second.unsubscribe();
+    expect(sockets[0].sent).toContainEqual({ type: 'unsubscribe', systemIds: ['van-1'] });
+  });
+
+  it('does not ask again for a system whose access ended when it reconnects', () => {
+    const stream = TestBed.inject(LiveStream);
+    stream.readings('van-1').subscribe();
+    stream.readings('boat-1').subscribe();
+    sockets[0].open();
+    sockets[0].receive({ type: 'access-ended', systemIds: ['boat-1'] });
+    sockets[0].error(new Error('gone'));
+    jest.advanceTimersByTime(1000);
+    sockets[1].open();
+    expect(sockets[1].sent).toEqual([{ type: 'subscribe', systemIds: ['van-1'] }]);
+  });
+
   it('caps the back-off at 30 seconds', () => {
     expect([0, 1, 2, 10].map(reconnectDelay)).toEqual([1000, 2000, 4000, 30000]);
   });

@@ -1,14 +1,16 @@
 import { Injectable, InjectionToken, inject, signal } from '@angular/core';
-import type { BatteryReading } from '@cellwarden/shared';
+import type { AlertEvent, DerivedState, ReceivedReading, StreamMessage } from '@cellwarden/shared';
 import { Observable, Subject, filter, map, retry, share, timer } from 'rxjs';
 import { WebSocketSubject, WebSocketSubjectConfig, webSocket } from 'rxjs/webSocket';
 import { Auth } from './auth';
 
-/** Messages the server sends on /api/stream. */
-export type StreamMessage =
-  | { type: 'subscribed'; systemIds: string[] }
-  | { type: 'reading'; systemId: string; reading: BatteryReading }
-  | { type: 'error'; error: { code: string; message: string } };
+export type { StreamMessage } from '@cellwarden/shared';
+
+/** What the stream says about one system. */
+export type SystemStreamEvent =
+  | { type: 'reading'; reading: ReceivedReading; derived: DerivedState | null }
+  | { type: 'alert'; alert: AlertEvent }
+  | { type: 'access-ended' };
 
 /** The state of the one WebSocket. */
 export type ConnectionState = 'connecting' | 'open' | 'closed';
@@ -28,7 +30,8 @@ export function reconnectDelay(attempt: number): number {
 export class LiveStream {
   private readonly auth = inject(Auth);
   private readonly createSocket = inject(WEB_SOCKET_FACTORY);
-  private readonly systemIds = new Set<string>();
+  // How many subscribers watch each system; the server hears of a system once.
+  private readonly watchers = new Map<string, number>();
   private socket: WebSocketSubject<unknown> | null = null;
   private readonly state = signal<ConnectionState>('closed');
   private messages$: Observable<StreamMessage> | null = null;
@@ -39,23 +42,35 @@ export class LiveStream {
   /** Errors the server reports on the stream. */
   readonly streamErrors$ = this.errors.asObservable();
 
-  /** Readings of one system; subscribing opens the socket if needed and subscribes to the system. */
-  readings(systemId: string): Observable<BatteryReading> {
-    return new Observable<BatteryReading>((subscriber) => {
-      this.systemIds.add(systemId);
+  /** Readings, alerts and the end of access for one system; subscribing opens the socket if needed. */
+  events(systemId: string): Observable<SystemStreamEvent> {
+    return new Observable<SystemStreamEvent>((subscriber) => {
+      this.watchers.set(systemId, (this.watchers.get(systemId) ?? 0) + 1);
       this.sendSubscribe();
       const inner = this.messages()
         .pipe(
-          filter((m): m is Extract<StreamMessage, { type: 'reading' }> => m.type === 'reading'),
-          filter((m) => m.systemId === systemId),
-          map((m) => m.reading),
+          map((message) => eventFor(message, systemId)),
+          filter((event): event is SystemStreamEvent => event !== null),
         )
         .subscribe(subscriber);
       return () => {
         inner.unsubscribe();
-        this.systemIds.delete(systemId);
+        const left = (this.watchers.get(systemId) ?? 1) - 1;
+        if (left > 0) this.watchers.set(systemId, left);
+        else {
+          this.watchers.delete(systemId);
+          this.sendUnsubscribe(systemId);
+        }
       };
     });
+  }
+
+  /** Readings of one system. */
+  readings(systemId: string): Observable<ReceivedReading> {
+    return this.events(systemId).pipe(
+      filter((event) => event.type === 'reading'),
+      map((event) => event.reading),
+    );
   }
 
   private messages(): Observable<StreamMessage> {
@@ -65,7 +80,9 @@ export class LiveStream {
       const inner = socket.subscribe({
         next: (message) => {
           const typed = message as StreamMessage;
-          if (typed.type === 'error') this.errors.next(typed.error);
+          if (typed.type === 'error') this.errors.next({ code: typed.code, message: typed.message });
+          // A reconnect must not ask again for systems whose access has ended.
+          if (typed.type === 'access-ended') typed.systemIds.forEach((id) => this.watchers.delete(id));
           subscriber.next(typed);
         },
         error: (error: unknown) => {
@@ -106,9 +123,31 @@ export class LiveStream {
     return socket;
   }
 
+  private sendUnsubscribe(systemId: string): void {
+    if (this.socket && this.state() === 'open') {
+      this.socket.next({ type: 'unsubscribe', systemIds: [systemId] });
+    }
+  }
+
   private sendSubscribe(): void {
     if (this.socket && this.state() === 'open') {
-      this.socket.next({ type: 'subscribe', systemIds: [...this.systemIds] });
+      this.socket.next({ type: 'subscribe', systemIds: [...this.watchers.keys()] });
     }
+  }
+}
+
+/** The part of a stream message that concerns one system, or null. */
+export function eventFor(message: StreamMessage, systemId: string): SystemStreamEvent | null {
+  switch (message.type) {
+    case 'reading':
+      return message.systemId === systemId
+        ? { type: 'reading', reading: message.reading, derived: message.derived ?? null }
+        : null;
+    case 'alert':
+      return message.systemId === systemId ? { type: 'alert', alert: message.alert } : null;
+    case 'access-ended':
+      return message.systemIds.includes(systemId) ? { type: 'access-ended' } : null;
+    default:
+      return null;
   }
 }

@@ -1,4 +1,4 @@
-import { Injectable, computed, inject, signal } from '@angular/core';
+import { Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
 import type { FlagKind, UserPreferences } from '@cellwarden/shared';
 import { Observable, tap } from 'rxjs';
 import { Auth } from './auth';
@@ -13,21 +13,23 @@ export class Preferences {
   private readonly api = inject(SettingsApi);
   private readonly auth = inject(Auth);
   private readonly current = signal<UserPreferences | null>(null);
-  private requested = false;
+  private wasSignedIn = false;
 
   /** The unit every temperature on screen is shown in. */
-  readonly temperatureUnit = computed<TemperatureUnit>(() => {
-    this.ensureLoaded();
-    return this.current()?.temperatureUnit ?? DEFAULT_PREFERENCES.temperatureUnit;
-  });
+  readonly temperatureUnit = computed<TemperatureUnit>(
+    () => this.current()?.temperatureUnit ?? DEFAULT_PREFERENCES.temperatureUnit,
+  );
   /** Flag kinds the person wants e-mail about. */
   readonly emailFlags = computed<FlagKind[]>(() => this.current()?.emailFlags ?? []);
   /** The loaded preferences, or null before they arrive. */
   readonly value = this.current.asReadonly();
 
-  /** Loads the preferences (once per session); failures keep the defaults. */
+  constructor() {
+    effect(() => this.followSession(this.auth.isSignedIn()));
+  }
+
+  /** Loads the preferences from the server. */
   load(): Observable<UserPreferences> {
-    this.requested = true;
     return this.api.preferences().pipe(tap((preferences) => this.current.set(preferences)));
   }
 
@@ -36,10 +38,17 @@ export class Preferences {
     return this.api.savePreferences(preferences).pipe(tap((saved) => this.current.set(saved)));
   }
 
-  private ensureLoaded(): void {
-    if (this.requested || !this.auth.isSignedIn()) return;
-    this.requested = true;
-    // Deferred so a template reading the unit does not write a signal while it renders.
-    queueMicrotask(() => this.load().subscribe({ error: () => undefined }));
+  // Each new session loads its own preferences; signing out forgets them.
+  private followSession(signedIn: boolean): void {
+    untracked(() => {
+      if (signedIn) this.refresh();
+      else if (this.wasSignedIn) this.current.set(null);
+    });
+    this.wasSignedIn = signedIn;
+  }
+
+  private refresh(): void {
+    // A failure keeps the defaults (°C, no e-mail); the settings screen shows its own error.
+    this.load().subscribe({ error: () => undefined });
   }
 }

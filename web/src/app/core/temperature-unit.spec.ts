@@ -1,4 +1,11 @@
-import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, formatTemperature } from './temperature-unit';
+import {
+  celsiusDeltaToFahrenheit,
+  celsiusToFahrenheit,
+  fahrenheitToCelsius,
+  formatTemperature,
+  inUnit,
+  toCelsius,
+} from './temperature-unit';
 
 describe('celsiusToFahrenheit', () => {
   // NIST SP 811 (2008), B.9: t/°F = 1.8 · t/°C + 32.
@@ -23,4 +30,15 @@ describe('formatTemperature', () => {
   it('shows °F when the person prefers it', () => expect(formatTemperature(18, 'F')).toBe('64.4 °F'));
   it('shows a dash when there is no temperature', () => expect(formatTemperature(null, 'C')).toBe('—'));
   it('never shows minus zero', () => expect(formatTemperature(-0.01, 'C')).toBe('0.0 °C'));
+});
+
+describe('fahrenheitToCelsius', () => {
+  // NIST SP 811 (2008), B.9: t/°C = (t/°F − 32)/1.8; 212 °F → 100 °C.
+  it('brings 212 °F back to 100 °C', () => expect(fahrenheitToCelsius(212)).toBeCloseTo(100, 10));
+  // NIST SP 811 (2008), B.9: 32 °F → 0 °C.
+  it('brings 32 °F back to 0 °C', () => expect(fahrenheitToCelsius(32)).toBe(0));
+  it('round-trips through the chosen unit', () => {
+    expect(toCelsius(inUnit(45, 'F'), 'F')).toBeCloseTo(45, 10);
+    expect(toCelsius(inUnit(45, 'C'), 'C')).toBe(45);
+  });
 });

@@ -19,3 +19,18 @@ export function formatTemperature(celsius: number | null | undefined, unit: Temp
   const text = (Math.round(value * 10) / 10 + 0).toFixed(1);
   return `${text === '-0.0' ? '0.0' : text} °${unit}`;
 }
+
+/** Degrees Fahrenheit to degrees Celsius (°C = (°F − 32) × 5/9). */
+export function fahrenheitToCelsius(fahrenheit: number): number {
+  return ((fahrenheit - 32) * 5) / 9;
+}
+
+/** A °C value in the chosen unit, unrounded. */
+export function inUnit(celsius: number, unit: TemperatureUnit): number {
+  return unit === 'F' ? celsiusToFahrenheit(celsius) : celsius;
+}
+
+/** A value in the chosen unit back in °C. */
+export function toCelsius(value: number, unit: TemperatureUnit): number {
+  return unit === 'F' ? fahrenheitToCelsius(value) : value;
+}

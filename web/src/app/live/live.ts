@@ -3,32 +3,51 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
-import type { BatteryReading } from '@cellwarden/shared';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
-import { catchError, concat, map, of, scan, switchMap } from 'rxjs';
+import { switchMap } from 'rxjs';
 import { Api } from '../core/api';
+import type { ApiProblem } from '../core/api-error';
 import { currentDirection } from '../core/current-direction';
 import { LiveStream } from '../core/live-stream';
 import { injectNow } from '../core/now';
-import type { HistoryPoint, SystemSummary } from '../core/system-summary';
-import { isStale } from '../systems/is-stale';
+import { SettingsApi } from '../core/settings-api';
+import { isStale } from '../core/staleness';
+import { SystemNav } from '../core/system-nav/system-nav';
+import { TemperaturePipe } from '../core/temperature-pipe';
+import { ChargeColumn } from './charge-column/charge-column';
 import { isColdCharging } from './cold-charge';
-import { ChartPoint, appendWithin, toChartSeries } from './to-chart-series';
+import { describeSeries } from './describe-series';
+import { FlagList } from './flag-list/flag-list';
+import { liveChartPoints, liveStates, sourceLabels, systemOrMissing } from './live-feeds';
+import type { ActiveFlag } from './live-state';
+import { formatHours } from './runtime-text';
+import { sourceShares } from './source-shares';
+import { toChartSeries } from './to-chart-series';
 
-const CHART_WINDOW_MS = 60 * 60 * 1000;
-
-/** One system's live values and chart. */
+/** One system's values now: charge, flows, runtime, flags and the last hours. */
 @Component({
   selector: 'cw-live',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatCardModule, MatIconModule, RouterLink, BaseChartDirective, DecimalPipe, DatePipe],
+  imports: [
+    MatCardModule,
+    MatIconModule,
+    MatProgressSpinnerModule,
+    BaseChartDirective,
+    DecimalPipe,
+    DatePipe,
+    TemperaturePipe,
+    SystemNav,
+    ChargeColumn,
+    FlagList,
+  ],
   templateUrl: './live.html',
   styleUrl: './live.scss',
 })
 export class Live {
   private readonly api = inject(Api);
+  private readonly settingsApi = inject(SettingsApi);
   private readonly stream = inject(LiveStream);
   protected readonly now = injectNow(5_000);
 
@@ -36,51 +55,61 @@ export class Live {
   readonly id = input.required<string>();
 
   private readonly id$ = toObservable(this.id);
-  protected readonly system = toSignal(
-    this.id$.pipe(
-      switchMap((id) =>
-        this.api.system(id).pipe(
-          map((system): SystemSummary | 'missing' => system),
-          catchError(() => of('missing' as const)),
-        ),
-      ),
-    ),
+  protected readonly system = toSignal(this.id$.pipe(switchMap((id) => systemOrMissing(this.api, id))));
+  protected readonly load = toSignal(
+    this.id$.pipe(switchMap((id) => liveStates(this.api, this.stream, id))),
+    {
+      initialValue: { phase: 'loading' as const },
+    },
   );
-  private readonly liveReading = toSignal(this.id$.pipe(switchMap((id) => this.stream.readings(id))));
-  private readonly points = toSignal(this.id$.pipe(switchMap((id) => this.chartPoints(id))), {
-    initialValue: [] as ChartPoint[],
+  private readonly labels = toSignal(this.id$.pipe(switchMap((id) => sourceLabels(this.settingsApi, id))), {
+    initialValue: {},
   });
+  private readonly points = toSignal(
+    this.id$.pipe(switchMap((id) => liveChartPoints(this.api, this.stream, id))),
+    {
+      initialValue: [],
+    },
+  );
 
   protected readonly connectionState = this.stream.connectionState;
+  protected readonly state = computed(() => {
+    const load = this.load();
+    return load.phase === 'ready' ? load.state : null;
+  });
+  protected readonly problem = computed<ApiProblem | null>(() => {
+    const load = this.load();
+    return load.phase === 'error' ? load.problem : null;
+  });
   protected readonly summary = computed(() => {
     const system = this.system();
     return system && system !== 'missing' ? system : null;
   });
-  protected readonly reading = computed<BatteryReading | null>(
-    () => this.liveReading() ?? this.summary()?.latestReading ?? null,
+  protected readonly reading = computed(() => this.state()?.reading ?? null);
+  protected readonly derived = computed(() => this.state()?.derived ?? null);
+  protected readonly stale = computed(() =>
+    isStale(this.reading()?.measuredAt, this.now(), this.state()?.intervalMs),
   );
   protected readonly power = computed(() => {
     const reading = this.reading();
     return reading ? (reading.power ?? reading.voltage * reading.current) : null;
   });
   protected readonly direction = computed(() => currentDirection(this.reading()?.current ?? 0));
-  protected readonly stale = computed(() => isStale(this.reading()?.measuredAt, this.now()));
-  protected readonly coldCharging = computed(() => {
-    const reading = this.reading();
-    const summary = this.summary();
-    return !!reading && !!summary && isColdCharging(summary.chemistry, reading);
-  });
+  protected readonly stateOfCharge = computed(
+    () => this.derived()?.stateOfCharge ?? this.reading()?.stateOfCharge ?? null,
+  );
+  protected readonly runtime = computed(() => runtimeText(this.direction(), this.derived()));
+  protected readonly shares = computed(() => sourceShares(this.reading()?.sourceCurrents, this.labels()));
+  protected readonly flags = computed(() =>
+    withColdCharge(this.state()?.flags ?? [], this.coldCharging(), this.reading()?.measuredAt),
+  );
   protected readonly chartData = computed(() => toChartSeries(this.points()));
-  protected readonly chartLabel = computed(() => {
-    const reading = this.reading();
-    return reading
-      ? `Chart of voltage and current over the last hour; latest ${reading.voltage.toFixed(2)} V and ${reading.current.toFixed(1)} A`
-      : 'Chart of voltage and current over the last hour; no readings yet';
-  });
+  protected readonly chartSummary = computed(() => describeSeries(this.points(), 'in the last 3 hours'));
   protected readonly chartOptions: ChartOptions<'line'> = {
     animation: false,
     maintainAspectRatio: false,
     parsing: false,
+    interaction: { mode: 'nearest', axis: 'x', intersect: false },
     scales: {
       x: { type: 'time', time: { tooltipFormat: 'HH:mm:ss' } },
       voltage: { type: 'linear', position: 'left', title: { display: true, text: 'V' } },
@@ -93,19 +122,28 @@ export class Live {
     },
   };
 
-  private chartPoints(id: string) {
-    const to = new Date();
-    const from = new Date(to.getTime() - CHART_WINDOW_MS);
-    const history = this.api.readings(id, from, to).pipe(catchError(() => of([] as HistoryPoint[])));
-    return concat(
-      history.pipe(map((points) => ({ kind: 'seed' as const, points }))),
-      this.stream.readings(id).pipe(map((reading) => ({ kind: 'live' as const, reading }))),
-    ).pipe(
-      scan<{ kind: 'seed'; points: ChartPoint[] } | { kind: 'live'; reading: ChartPoint }, ChartPoint[]>(
-        (points, event) =>
-          event.kind === 'seed' ? [...event.points] : appendWithin(points, event.reading, CHART_WINDOW_MS),
-        [],
-      ),
-    );
+  private coldCharging(): boolean {
+    const reading = this.reading();
+    const summary = this.summary();
+    return !!reading && !!summary && !this.stale() && isColdCharging(summary.chemistry, reading);
   }
+}
+
+function runtimeText(
+  direction: ReturnType<typeof currentDirection>,
+  derived: { hoursToEmpty: number | null; hoursToFull: number | null } | null,
+): { label: string; value: string } {
+  if (direction === 'charging') {
+    return { label: 'Time to full', value: formatHours(derived?.hoursToFull) ?? '—' };
+  }
+  if (direction === 'discharging') {
+    return { label: 'Time to empty', value: formatHours(derived?.hoursToEmpty) ?? '—' };
+  }
+  return { label: 'Runtime', value: 'Idle: no net flow' };
+}
+
+// The server raises this flag too; the local check covers the gap until its alert arrives.
+function withColdCharge(flags: ActiveFlag[], coldCharging: boolean, measuredAt = Date.now()): ActiveFlag[] {
+  if (!coldCharging || flags.some((f) => f.kind === 'cold-charging')) return flags;
+  return [...flags, { kind: 'cold-charging', severity: 'critical', since: measuredAt, peakValue: null }];
 }

@@ -33,4 +33,21 @@ describe('appendWithin', () => {
     const kept = appendWithin([{ measuredAt: 0 }, { measuredAt: 500 }], { measuredAt: 1200 }, 1000);
     expect(kept.map((p) => p.measuredAt)).toEqual([500, 1200]);
   });
+
+  it('keeps at most the newest maxPoints points', () => {
+    const kept = appendWithin(
+      [{ measuredAt: 1 }, { measuredAt: 2 }, { measuredAt: 3 }],
+      { measuredAt: 4 },
+      1000,
+      2,
+    );
+    expect(kept.map((p) => p.measuredAt)).toEqual([3, 4]);
+  });
+
+  it('leaves the input array untouched so the chart sees a new object', () => {
+    const points = [{ measuredAt: 1 }];
+    const kept = appendWithin(points, { measuredAt: 2 }, 1000);
+    expect(points).toHaveLength(1);
+    expect(kept).not.toBe(points);
+  });
 });

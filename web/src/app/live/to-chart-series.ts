@@ -34,12 +34,14 @@ export function toChartSeries(points: readonly ChartPoint[]): ChartData<'line', 
   };
 }
 
-/** Appends a point and keeps only those within `windowMs` of the newest. */
+/** Appends a point and keeps only those within `windowMs` of the newest, and at most `maxPoints`. */
 export function appendWithin<T extends { measuredAt: number }>(
   points: readonly T[],
   point: T,
   windowMs: number,
+  maxPoints = Infinity,
 ): T[] {
   const cutoff = point.measuredAt - windowMs;
-  return [...points.filter((p) => p.measuredAt >= cutoff && p.measuredAt !== point.measuredAt), point];
+  const kept = [...points.filter((p) => p.measuredAt >= cutoff && p.measuredAt !== point.measuredAt), point];
+  return kept.length > maxPoints ? kept.slice(kept.length - maxPoints) : kept;
 }

@@ -1,22 +1,24 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { DatePipe, DecimalPipe, NgTemplateOutlet } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { MatCardModule } from '@angular/material/card';
-import { MatIconModule } from '@angular/material/icon';
-import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { catchError, map, of, startWith } from 'rxjs';
+import type { SystemStatus } from '@cellwarden/shared';
+import { map } from 'rxjs';
 import { Api } from '../core/api';
-import { currentDirection } from '../core/current-direction';
 import { injectNow } from '../core/now';
-import type { SystemSummary } from '../core/system-summary';
-import { isStale } from './is-stale';
+import { FleetRow, fleetSortValue, matchesSearch, toFleetRow } from './fleet-row';
+import { fleetLoad, statusesOf } from './fleet-feeds';
 
-type SystemsState =
-  { status: 'loading' } | { status: 'error' } | { status: 'loaded'; systems: SystemSummary[] };
-
-/** Home screen: the systems the user may see with their latest values. */
+/** The fleet: every system the user may see, worst first, with search and sort; cards on a phone. */
 @Component({
   selector: 'cw-systems',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -25,35 +27,66 @@ type SystemsState =
     MatIconModule,
     MatProgressSpinnerModule,
     MatButtonModule,
+    MatTableModule,
+    MatSortModule,
+    MatFormFieldModule,
+    MatInputModule,
     RouterLink,
     DecimalPipe,
     DatePipe,
+    NgTemplateOutlet,
   ],
   templateUrl: './systems.html',
   styleUrl: './systems.scss',
 })
 export class Systems {
   private readonly api = inject(Api);
+  private readonly breakpoints = inject(BreakpointObserver);
   protected readonly now = injectNow();
 
-  protected readonly state = toSignal(
-    this.api.systems().pipe(
-      map((systems): SystemsState => ({ status: 'loaded', systems })),
-      catchError(() => of<SystemsState>({ status: 'error' })),
-      startWith<SystemsState>({ status: 'loading' }),
-    ),
-    { requireSync: true },
-  );
-  protected readonly systems = computed(() => {
-    const state = this.state();
-    return state.status === 'loaded' ? state.systems : [];
+  protected readonly state = toSignal(fleetLoad(this.api), { requireSync: true });
+  private readonly statuses = toSignal(statusesOf(this.api, this.state), {
+    initialValue: new Map<string, SystemStatus>(),
   });
+  protected readonly isPhone = toSignal(
+    this.breakpoints.observe('(max-width: 599.98px)').pipe(map((state) => state.matches)),
+    { initialValue: false },
+  );
+  protected readonly search = signal('');
+  protected readonly sort = signal<Sort>({ active: 'flags', direction: 'desc' });
+  protected readonly columns = ['name', 'lastSeen', 'stateOfCharge', 'voltage', 'flags'];
 
-  protected isStale(system: SystemSummary): boolean {
-    return isStale(system.latestReading?.measuredAt, this.now());
+  protected readonly rows = computed(() => {
+    const state = this.state();
+    if (state.status !== 'loaded') return [];
+    const statuses = this.statuses();
+    return state.systems.map((s) => toFleetRow(s, statuses.get(s.id) ?? null, this.now()));
+  });
+  protected readonly visibleRows = computed(() =>
+    sortRows(
+      this.rows().filter((row) => matchesSearch(row, this.search())),
+      this.sort(),
+    ),
+  );
+
+  protected updateSearch(event: Event): void {
+    this.search.set((event.target as HTMLInputElement).value);
   }
 
-  protected direction(current: number): string {
-    return currentDirection(current);
+  protected statusWords(row: FleetRow): string {
+    if (row.worst === 'critical') return 'Critical flag';
+    if (row.worst === 'warning') return 'Warning';
+    if (row.silent) return row.lastSeenAt ? 'Silent' : 'No readings yet';
+    return 'OK';
   }
+}
+
+function sortRows(rows: FleetRow[], sort: Sort): FleetRow[] {
+  if (!sort.direction) return rows;
+  const sign = sort.direction === 'asc' ? 1 : -1;
+  return [...rows].sort((a, b) => {
+    const x = fleetSortValue(a, sort.active);
+    const y = fleetSortValue(b, sort.active);
+    return (x < y ? -1 : x > y ? 1 : 0) * sign || a.name.localeCompare(b.name);
+  });
 }

@@ -42,4 +42,10 @@ export class Shell {
   protected readonly themeLabel = computed(() =>
     this.theme.mode() === 'dark' ? 'Switch to light theme' : 'Switch to dark theme',
   );
+
+  /** Moves focus to the main landmark; the plain #main link would go through the router. */
+  protected skipToMain(event: Event): void {
+    event.preventDefault();
+    document.getElementById('main')?.focus();
+  }
 }

@@ -1,0 +1,77 @@
+import type { SystemStatus, SystemSummary } from '@cellwarden/shared';
+import { Observable, catchError, concat, map, of, scan, startWith, takeWhile } from 'rxjs';
+import { Api } from '../core/api';
+import { ApiProblem, apiProblem } from '../core/api-error';
+import { LiveStream, SystemStreamEvent } from '../core/live-stream';
+import { SettingsApi } from '../core/settings-api';
+import { EMPTY_LIVE_STATE, LiveState, applyStreamEvent, seedLiveState } from './live-state';
+import { ChartPoint, appendWithin } from './to-chart-series';
+
+/** How far back the live chart reaches. */
+export const LIVE_WINDOW_MS = 3 * 60 * 60 * 1000;
+/** At most this many points stay in the live chart (3 h at one reading every 5 s is 2160). */
+export const LIVE_MAX_POINTS = 2400;
+
+/** Loading, failed, or the live state. */
+export type LiveLoad =
+  { phase: 'loading' } | { phase: 'error'; problem: ApiProblem } | { phase: 'ready'; state: LiveState };
+
+/** The system's description, or 'missing' when it cannot be seen. */
+export function systemOrMissing(api: Api, id: string): Observable<SystemSummary | 'missing'> {
+  return api.system(id).pipe(catchError(() => of('missing' as const)));
+}
+
+type LiveStep = { kind: 'seed'; status: SystemStatus } | { kind: 'event'; event: SystemStreamEvent };
+
+/** The status, then every stream event folded in; stops listening once access ends. */
+export function liveStates(api: Api, stream: LiveStream, id: string): Observable<LiveLoad> {
+  return concat(
+    api.status(id).pipe(map((status): LiveStep => ({ kind: 'seed', status }))),
+    stream.events(id).pipe(map((event): LiveStep => ({ kind: 'event', event }))),
+  ).pipe(
+    scan(
+      (state: LiveState, step: LiveStep) =>
+        step.kind === 'seed' ? seedLiveState(step.status) : applyStreamEvent(state, step.event),
+      EMPTY_LIVE_STATE,
+    ),
+    map((state): LiveLoad => ({ phase: 'ready', state })),
+    takeWhile((load) => load.phase !== 'ready' || !load.state.accessEnded, true),
+    catchError((error: unknown) => of<LiveLoad>({ phase: 'error', problem: apiProblem(error) })),
+    startWith<LiveLoad>({ phase: 'loading' }),
+  );
+}
+
+/** The last hours of voltage and current: stored readings, then each live one appended. */
+export function liveChartPoints(api: Api, stream: LiveStream, id: string): Observable<ChartPoint[]> {
+  const to = new Date();
+  const from = new Date(to.getTime() - LIVE_WINDOW_MS);
+  const stored = api.readings(id, from, to).pipe(
+    map((history) => history.points),
+    catchError(() => of([] as ChartPoint[])),
+  );
+  return concat(
+    stored.pipe(map((points) => ({ kind: 'seed' as const, points }))),
+    stream.readings(id).pipe(map((reading) => ({ kind: 'live' as const, reading }))),
+  ).pipe(
+    scan<{ kind: 'seed'; points: ChartPoint[] } | { kind: 'live'; reading: ChartPoint }, ChartPoint[]>(
+      (points, step) =>
+        step.kind === 'seed'
+          ? step.points.slice(-LIVE_MAX_POINTS)
+          : appendWithin(points, pick(step.reading), LIVE_WINDOW_MS, LIVE_MAX_POINTS),
+      [],
+    ),
+  );
+}
+
+/** Labels of the system's charge sources by id; none when the settings cannot be read. */
+export function sourceLabels(api: SettingsApi, id: string): Observable<Record<string, string>> {
+  return api.settings(id).pipe(
+    map((settings) => Object.fromEntries(settings.chargeSources.map((s) => [s.id, s.label]))),
+    catchError(() => of({})),
+  );
+}
+
+function pick(reading: ChartPoint): ChartPoint {
+  // Only what the chart plots, so the window does not hold whole readings.
+  return { measuredAt: reading.measuredAt, voltage: reading.voltage, current: reading.current };
+}
