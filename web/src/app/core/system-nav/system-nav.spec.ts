@@ -1,9 +1,24 @@
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
+import type { Role } from '@cellwarden/shared';
+import { Auth } from '../auth';
 import { SystemNav } from './system-nav';
 
 describe('SystemNav', () => {
-  beforeEach(() => TestBed.configureTestingModule({ imports: [SystemNav], providers: [provideRouter([])] }));
+  let roles: Role[] = [];
+  beforeEach(() => {
+    roles = [];
+    TestBed.configureTestingModule({
+      imports: [SystemNav],
+      providers: [
+        provideRouter([]),
+        {
+          provide: Auth,
+          useValue: { hasAnyRole: (wanted: readonly Role[]) => wanted.some((r) => roles.includes(r)) },
+        },
+      ],
+    });
+  });
 
   async function render(active: string) {
     const fixture = TestBed.createComponent(SystemNav);
@@ -22,6 +37,20 @@ describe('SystemNav', () => {
       '/systems/van%201/alerts',
       '/systems/van%201/settings',
     ]);
+  });
+
+  it('adds the access page for owners and the commissioning page for installers', async () => {
+    roles = ['owner'];
+    const ownerLinks = Array.from((await render('live')).querySelectorAll('nav a'), (a) =>
+      a.textContent?.trim(),
+    );
+    expect(ownerLinks).toEqual(expect.arrayContaining(['boltNow', 'keyAccess', 'fact_checkCommissioning']));
+    roles = ['installer'];
+    const fitterLinks = Array.from((await render('live')).querySelectorAll('nav a'), (a) =>
+      a.textContent?.trim(),
+    );
+    expect(fitterLinks).not.toContain('keyAccess');
+    expect(fitterLinks).toContain('fact_checkCommissioning');
   });
 
   it('marks the page being shown for assistive technology', async () => {

@@ -1,9 +1,11 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
+import type { Role } from '@cellwarden/shared';
+import { Auth } from '../auth';
 
 /** The sections of one system's pages. */
-export type SystemSection = 'live' | 'history' | 'alerts' | 'settings';
+export type SystemSection = 'live' | 'history' | 'alerts' | 'settings' | 'access' | 'commissioning';
 
 /** Links between one system's live, history, alerts and settings pages, with a way back to the list. */
 @Component({
@@ -13,7 +15,7 @@ export type SystemSection = 'live' | 'history' | 'alerts' | 'settings';
   template: `
     <a class="back" routerLink="/systems"><mat-icon aria-hidden="true">arrow_back</mat-icon>All systems</a>
     <nav [attr.aria-label]="'Pages of ' + (name() || 'this system')">
-      @for (link of links; track link.section) {
+      @for (link of visibleLinks(); track link.section) {
         <a
           [routerLink]="link.path(systemId())"
           [class.active]="active() === link.section"
@@ -82,6 +84,7 @@ export type SystemSection = 'live' | 'history' | 'alerts' | 'settings';
   `,
 })
 export class SystemNav {
+  private readonly auth = inject(Auth);
   /** The system the pages belong to. */
   readonly systemId = input.required<string>();
   /** The system's name, for the navigation's label. */
@@ -109,5 +112,24 @@ export class SystemNav {
       icon: 'tune',
       path: (id: string) => ['/systems', id, 'settings'],
     },
+    {
+      section: 'access',
+      label: 'Access',
+      icon: 'key',
+      path: (id: string) => ['/systems', id, 'access'],
+      roles: ['owner'] as Role[],
+    },
+    {
+      section: 'commissioning',
+      label: 'Commissioning',
+      icon: 'fact_check',
+      path: (id: string) => ['/systems', id, 'commissioning'],
+      roles: ['installer', 'admin', 'owner'] as Role[],
+    },
   ] as const;
+
+  /** Pages whose route the person's roles open; the server still decides per system. */
+  protected readonly visibleLinks = computed(() =>
+    this.links.filter((link) => !('roles' in link) || this.auth.hasAnyRole(link.roles)),
+  );
 }
