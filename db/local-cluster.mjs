@@ -2,7 +2,16 @@
 // created in an ignored data folder, started on a project port. Node built-ins only, because
 // it runs before (and independently of) node_modules.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync, chmodSync } from 'node:fs';
+import {
+  appendFileSync,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  writeFileSync,
+  chmodSync,
+} from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 
 const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
@@ -62,8 +71,9 @@ function chownToServiceUser(path) {
 }
 
 /**
- * Describes one cluster. `dataDir` is absolute; the log file sits beside it.
- * @param {{ dataDir: string, port: number, superuser: string, password: string }} options
+ * Describes one cluster. `dataDir` is absolute; the log file sits beside it. `replication: true` makes it a
+ * primary that streaming replicas can copy and follow (see replica-cluster.mjs); off by default.
+ * @param {{ dataDir: string, port: number, superuser: string, password: string, replication?: boolean }} options
  */
 export function describeCluster(options) {
   const dataDir = resolve(options.dataDir);
@@ -102,6 +112,13 @@ function initialise(bin, cluster, log) {
   }
 }
 
+// The superuser may open a replication connection over loopback (pg_basebackup, a standby's WAL stream).
+function allowReplication(cluster) {
+  const hba = join(cluster.dataDir, 'pg_hba.conf');
+  const entry = `host replication ${cluster.superuser} 127.0.0.1/32 scram-sha-256`;
+  if (!readFileSync(hba, 'utf8').includes(entry)) appendFileSync(hba, `${entry}\n`);
+}
+
 function isRunning(bin, cluster) {
   return runServerTool(bin, 'pg_ctl', ['-D', cluster.dataDir, 'status']).status === 0;
 }
@@ -118,7 +135,10 @@ export function startCluster(cluster, log = console.log) {
     "-c listen_addresses='127.0.0.1'",
     `-c unix_socket_directories='${cluster.dataDir}'`,
     '-c fsync=on',
+    // Said explicitly for a primary, so a changed default or a conf edit cannot turn streaming off.
+    ...(cluster.replication ? ['-c wal_level=replica', '-c max_wal_senders=10'] : []),
   ].join(' ');
+  if (cluster.replication) allowReplication(cluster);
   const result = runServerTool(bin, 'pg_ctl', [
     '-D',
     cluster.dataDir,

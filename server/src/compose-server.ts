@@ -27,6 +27,7 @@ import { createAuditRepository } from './audit/audit-repository';
 import { createAuditService } from './audit/audit-service';
 import { createBrokerPolicy } from './broker/broker-policy';
 import { startMqttBroker } from './broker/mqtt-broker';
+import { startClusterMode } from './cluster/cluster-mode';
 import type { Config } from './config';
 import { connectDatabase } from './database/connect-database';
 import { createDevicesRepository } from './devices/devices-repository';
@@ -71,6 +72,9 @@ export async function startServer(
 ): Promise<RunningServer> {
   const sequelize = connectDatabase(config.DATABASE_URL);
   await migrateToLatest(sequelize, (m) => logger.debug('migration', { step: m }));
+  // Cluster mode and the read replica only by configuration: without them a single machine runs as ever.
+  const cluster = config.REDIS_URL ? await startClusterMode(config.REDIS_URL, logger) : undefined;
+  const reader = config.DATABASE_READ_URL ? connectDatabase(config.DATABASE_READ_URL) : undefined;
   const mailCatcher = config.SMTP_URL
     ? undefined
     : await startMailCatcher({ host: '127.0.0.1', port: 0, limit: 200, logger });
@@ -104,7 +108,7 @@ export async function startServer(
 
   const grantsRepository = createGrantsRepository(sequelize);
   const systems = createSystemsService({
-    repository: createSystemsRepository(sequelize),
+    repository: createSystemsRepository(sequelize, reader),
     grants: grantsRepository,
     now,
   });
@@ -118,9 +122,9 @@ export async function startServer(
     now,
     onAccessRevoked: (systemId) => onAccessRevoked(systemId),
   });
-  const readingsRepository = createReadingsRepository(sequelize);
+  const readingsRepository = createReadingsRepository(sequelize, reader);
   const readings = createReadingsService({ systems, repository: readingsRepository, audit, now });
-  const hub = createReadingsHub();
+  const hub = cluster?.hub ?? createReadingsHub();
   const alertsRepository = createAlertsRepository(sequelize);
   const alerts = createAlertsService({
     repository: alertsRepository,
@@ -216,6 +220,8 @@ export async function startServer(
     port: config.MQTT_PORT,
     policy: createBrokerPolicy({ devices, ingest, logger }),
     logger,
+    mq: cluster?.broker.mq,
+    persistence: cluster?.broker.persistence,
   });
   mqttPort = broker.port;
 
@@ -234,6 +240,7 @@ export async function startServer(
       perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
       perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
       windowSeconds: config.SIGN_IN_LIMIT_WINDOW_SECONDS,
+      store: cluster?.signInStore,
     },
     systems,
     grants,
@@ -258,7 +265,9 @@ export async function startServer(
   const http = createServer(app);
   http.on('clientError', (_error, socket) => socket.destroy());
   const stream = attachLiveStream({ server: http, accounts, systems, hub, logger, now });
-  onAccessRevoked = (systemId) => stream.accessChanged(systemId);
+  // Through the hub, so a revoke on one node ends the streams on every node.
+  onAccessRevoked = (systemId) => hub.accessChanged(systemId);
+  const stopAccessSignal = hub.onAccessChanged((systemId) => stream.accessChanged(systemId));
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
     http.listen(config.PORT, config.HOST, () => resolve());
@@ -275,6 +284,7 @@ export async function startServer(
     async stop() {
       clearInterval(silenceSweep);
       checks.close();
+      stopAccessSignal();
       stream.close();
       await new Promise<void>((resolve) => http.close(() => resolve()));
       http.closeAllConnections();
@@ -282,6 +292,8 @@ export async function startServer(
       writer.close();
       mailer.close();
       await mailCatcher?.stop();
+      await cluster?.close();
+      await reader?.close();
       await sequelize.close();
     },
   };

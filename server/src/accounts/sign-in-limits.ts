@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { rateLimit, type Store } from 'express-rate-limit';
 import { AppError } from '../errors/app-error';
 
 /** How many failed sign-ins are tolerated per account and per client address within the window. */
@@ -7,6 +7,8 @@ export interface SignInLimits {
   perAccount: number;
   perAddress: number;
   windowSeconds: number;
+  /** Where the counters live, one store per limiter by name; absent keeps them in this process's memory. */
+  store?: (name: string) => Store;
 }
 
 const tooMany = (what: string) =>
@@ -29,6 +31,7 @@ export function createSignInLimiters(limits: SignInLimits): RequestHandler[] {
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    ...(limits.store && { store: limits.store('account') }),
     keyGenerator: (req) =>
       `account:${String(req.body?.email ?? '')
         .trim()
@@ -38,6 +41,7 @@ export function createSignInLimiters(limits: SignInLimits): RequestHandler[] {
   const perAddress = rateLimit({
     windowMs,
     limit: limits.perAddress,
+    ...(limits.store && { store: limits.store('address') }),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) => next(tooMany('address')),

@@ -1,9 +1,9 @@
-import { Aedes } from 'aedes';
+import { Aedes, type AedesOptions } from 'aedes';
 import { createServer, type AddressInfo, type Server } from 'node:net';
 import type { Logger } from '../logger';
 import type { createBrokerPolicy } from './broker-policy';
 
-/** The embedded MQTT broker on a TCP listener. Persistence and emitter stay aedes' in-memory defaults. */
+/** The embedded MQTT broker on a TCP listener. Persistence and emitter are aedes' in-memory defaults unless given. */
 export interface MqttBroker {
   port: number;
   close(): Promise<void>;
@@ -15,8 +15,16 @@ export async function startMqttBroker(options: {
   port: number;
   policy: ReturnType<typeof createBrokerPolicy>;
   logger: Logger;
+  /** A shared emitter (cluster mode); absent keeps aedes' in-process one. */
+  mq?: AedesOptions['mq'];
+  /** A shared persistence for sessions and in-flight messages (cluster mode); absent keeps memory. */
+  persistence?: AedesOptions['persistence'];
 }): Promise<MqttBroker> {
-  const broker = await Aedes.createBroker({ ...options.policy, heartbeatInterval: 30000 });
+  const stores = {
+    ...(options.mq && { mq: options.mq }),
+    ...(options.persistence && { persistence: options.persistence }),
+  };
+  const broker = await Aedes.createBroker({ ...options.policy, ...stores, heartbeatInterval: 30000 });
   broker.on('clientError', (client, error) =>
     options.logger.debug('mqtt client error', { clientId: client.id, error: error.message }),
   );

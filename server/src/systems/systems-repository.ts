@@ -39,11 +39,11 @@ function stripNulls(summary: StoredSystem): StoredSystem {
   return summary;
 }
 
-/** Data access for systems. */
-export function createSystemsRepository(sequelize: Sequelize) {
+/** Data access for systems; the fleet list is read from `reader` (a replica) when given. */
+export function createSystemsRepository(sequelize: Sequelize, reader: Sequelize = sequelize) {
   return {
     async listVisible(visibility: Visibility): Promise<StoredSystem[]> {
-      const rows = await sequelize.query<StoredSystem>(
+      const rows = await reader.query<StoredSystem>(
         `${SELECT_SYSTEM} WHERE s.owner_id = :userId
            OR (:seesCompany AND s.installer_company_id IS NOT NULL AND s.installer_company_id = :companyId)
            OR EXISTS (SELECT 1 FROM grants g WHERE g.system_id = s.id AND g.revoked_at IS NULL

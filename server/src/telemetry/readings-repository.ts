@@ -11,8 +11,8 @@ export interface ReadingRow {
 
 const COLUMNS = 10;
 
-/** Data access for readings. */
-export function createReadingsRepository(sequelize: Sequelize) {
+/** Data access for readings; history, export and energy reads go to `reader` (a replica) when given. */
+export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize = sequelize) {
   const knownMonths = new Set<string>();
 
   async function ensurePartitions(rows: readonly ReadingRow[]): Promise<void> {
@@ -92,7 +92,7 @@ export function createReadingsRepository(sequelize: Sequelize) {
       // Long ranges read the rollups: a year of hours is 8,760 rows however often the device reports.
       const rollup = bucketMs >= 3600_000 ? 'rollups_1h' : bucketMs >= 60_000 ? 'rollups_1m' : undefined;
       if (!rollup)
-        return sequelize.query<HistoryPoint>(
+        return reader.query<HistoryPoint>(
           `SELECT (extract(epoch FROM date_bin(:bucket::interval, measured_at, :from)) * 1000)::float8 AS "measuredAt",
              avg(voltage) AS voltage, avg(current) AS current, avg(temperature) AS temperature,
              avg(state_of_charge) AS "stateOfCharge"
@@ -100,7 +100,7 @@ export function createReadingsRepository(sequelize: Sequelize) {
            GROUP BY 1 ORDER BY 1 LIMIT :limit`,
           { replacements, type: QueryTypes.SELECT },
         );
-      return sequelize.query<HistoryPoint>(
+      return reader.query<HistoryPoint>(
         `SELECT (extract(epoch FROM date_bin(:bucket::interval, bucket_start, :from)) * 1000)::float8 AS "measuredAt",
            sum(voltage_sum) / sum(reading_count) AS voltage, sum(current_sum) / sum(reading_count) AS current,
            sum(temperature_sum) / sum(reading_count) AS temperature,
@@ -117,7 +117,7 @@ export function createReadingsRepository(sequelize: Sequelize) {
 
     /** Raw readings of one system in [from, to), oldest first. */
     listRaw: (systemId: string, from: Date, to: Date) =>
-      sequelize
+      reader
         .query<BatteryReading>(
           `SELECT (extract(epoch FROM measured_at) * 1000)::float8 AS "measuredAt", voltage, current, temperature,
            state_of_charge AS "stateOfCharge", power
@@ -134,7 +134,7 @@ export function createReadingsRepository(sequelize: Sequelize) {
 
     /** Energy in and out per day (UTC) over [from, to), from the hour rollups. */
     async dailyEnergy(systemId: string, from: Date, to: Date) {
-      return sequelize.query<{ day: string; ahIn: number; ahOut: number; whIn: number; whOut: number }>(
+      return reader.query<{ day: string; ahIn: number; ahOut: number; whIn: number; whOut: number }>(
         `SELECT to_char(date_trunc('day', bucket_start AT TIME ZONE 'UTC'), 'YYYY-MM-DD') AS day,
            sum(ah_in) AS "ahIn", sum(ah_out) AS "ahOut", sum(wh_in) AS "whIn", sum(wh_out) AS "whOut"
          FROM rollups_1h WHERE system_id = :systemId AND bucket_start >= :from AND bucket_start < :to
