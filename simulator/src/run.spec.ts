@@ -83,6 +83,18 @@ it("uses a scenario's own offline schedule when the command line gives none", as
   expect(new Set(arrivals.flatMap((a) => a.readings.map((r) => r.measuredAt))).size).toBe(150);
 });
 
+it('sends an unpaced run of a set count in packs, each reading with its own time', async () => {
+  arrivals.length = 0;
+  const start = Date.now() - 3600_000;
+  const argv = ['--broker', url, '--device', `${device.id}:${device.secret}`, '--scenario', 'driving-day'];
+  argv.push('--interval', '10', '--count', '45', '--start', new Date(start).toISOString());
+  expect(await run(argv, deps([]))).toBe(0);
+  expect(arrivals.map((a) => a.readings.length)).toEqual([20, 20, 5]);
+  expect(arrivals.flatMap((a) => a.readings.map((r) => (r.measuredAt - start) / 10_000))).toEqual(
+    Array.from({ length: 45 }, (_, i) => i),
+  );
+});
+
 it('refuses a bad argument with exit code 2 and a message naming it', async () => {
   const output: string[] = [];
   expect(await run(['--device', 'a:b', '--interval', 'soon'], deps(output))).toBe(2);

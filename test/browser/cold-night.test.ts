@@ -79,9 +79,13 @@ it('shows live values and the cold-charging flag with what to do, at 375 px in t
   );
   expect(overflow).toBeLessThanOrEqual(0);
   // Icons come from the bundled icon font (never a CDN), and nothing on the page breaks the CSP.
-  const fonts = await page.evaluate(() =>
-    [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.family),
-  );
+  const fonts = await page.evaluate(() => {
+    const loaded: string[] = [];
+    document.fonts.forEach((f) => {
+      if (f.status === 'loaded') loaded.push(f.family);
+    });
+    return loaded;
+  });
   expect(fonts).toContain('Material Icons');
   expect(policyViolations).toEqual([]);
   await page.screenshot({ path: join(__dirname, '..', '..', '.data', 'cold-night.png'), fullPage: true });
