@@ -5,11 +5,12 @@ import { run } from '../../simulator/src/run';
 
 /**
  * What a device handed to its MQTT client (sent) and what the broker acknowledged (acked), by measured
- * time, plus how many PUBLISH packets went on the wire (more than sent means redeliveries).
+ * time, plus the errors its clients reported.
  */
 export function createDeliveryLedger() {
   const sent = new Set<number>();
   const acked = new Set<number>();
+  const errors: string[] = [];
   let packets = 0;
   const timesOf = (message: string | Buffer) =>
     parseReadingPayload(typeof message === 'string' ? message : new Uint8Array(message), {
@@ -19,6 +20,7 @@ export function createDeliveryLedger() {
   /** mqtt.js connectAsync, with every client it makes noting what it sends and what is acknowledged. */
   async function connect(url: string, options: IClientOptions): Promise<MqttClient> {
     const client = await connectAsync(url, { reconnectPeriod: 250, connectTimeout: 5000, ...options });
+    client.on('error', (error) => errors.push(error.message));
     client.on('packetsend', (packet) => {
       if (packet.cmd === 'publish') packets++;
     });
@@ -36,7 +38,9 @@ export function createDeliveryLedger() {
   return {
     sent,
     acked,
+    errors,
     connect,
+    /** PUBLISH packets mqtt.js reported writing; resends from its store are not always among them. */
     get packets() {
       return packets;
     },

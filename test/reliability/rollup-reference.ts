@@ -23,7 +23,7 @@ export const GAP_CAP_SECONDS = 300;
 /**
  * The reference the rollups must equal, computed independently of the SQL: per bucket the number of
  * readings and Coulomb counting (Ah = Σ I·Δt), each reading's current held over the gap since the reading
- * before it (Δt capped at 300 s; the first reading has no gap and adds no energy).
+ * before it, Δt capped at 300 s; the first reading has none before it (an endless gap), so it stands for 300 s.
  */
 export function expectedBuckets(readings: readonly RawReading[], bucketMs: number): BucketEnergy[] {
   const sorted = [...readings].sort((a, b) => a.measuredAt - b.measuredAt);
@@ -39,13 +39,12 @@ export function expectedBuckets(readings: readonly RawReading[], bucketMs: numbe
       whOut: 0,
     };
     b.readingCount++;
-    if (i > 0) {
-      const hours = Math.min((r.measuredAt - sorted[i - 1].measuredAt) / 1000, GAP_CAP_SECONDS) / 3600;
-      b.ahIn += Math.max(r.current, 0) * hours;
-      b.ahOut += Math.max(-r.current, 0) * hours;
-      b.whIn += Math.max(r.current, 0) * r.voltage * hours;
-      b.whOut += Math.max(-r.current, 0) * r.voltage * hours;
-    }
+    const gapSeconds = i === 0 ? Infinity : (r.measuredAt - sorted[i - 1].measuredAt) / 1000;
+    const hours = Math.min(gapSeconds, GAP_CAP_SECONDS) / 3600;
+    b.ahIn += Math.max(r.current, 0) * hours;
+    b.ahOut += Math.max(-r.current, 0) * hours;
+    b.whIn += Math.max(r.current, 0) * r.voltage * hours;
+    b.whOut += Math.max(-r.current, 0) * r.voltage * hours;
     buckets.set(bucketStart, b);
   });
   return [...buckets.values()];

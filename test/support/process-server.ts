@@ -54,6 +54,10 @@ export function createProcessServer(options: ProcessServerOptions) {
     const keep = (chunk: Buffer) => (output = (output + chunk.toString()).slice(-20000));
     started.stdout!.on('data', keep);
     started.stderr!.on('data', keep);
+    // Detached children outlive their parent: should the test process end first, take the group with it.
+    const orphanGuard = () => killGroup(started.pid, 'SIGKILL');
+    process.once('exit', orphanGuard);
+    started.once('exit', () => process.removeListener('exit', orphanGuard));
     exited = new Promise((resolve) =>
       started.once('exit', () => {
         if (child === started) child = undefined;
@@ -66,11 +70,7 @@ export function createProcessServer(options: ProcessServerOptions) {
   async function signalGroup(signal: NodeJS.Signals): Promise<void> {
     const running = child;
     if (!running?.pid) return;
-    try {
-      process.kill(-running.pid, signal);
-    } catch {
-      // Already gone: nothing to signal.
-    }
+    killGroup(running.pid, signal);
     await exited;
     child = undefined;
   }
@@ -96,6 +96,15 @@ export function createProcessServer(options: ProcessServerOptions) {
     stop: () => signalGroup('SIGTERM'),
     output: () => output,
   };
+}
+
+function killGroup(pid: number | undefined, signal: NodeJS.Signals): void {
+  if (!pid) return;
+  try {
+    process.kill(-pid, signal);
+  } catch {
+    // Already gone: nothing to signal.
+  }
 }
 
 /** The status GET /api/health answers with, or 0 when nothing answers. */
