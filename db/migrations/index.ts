@@ -6,6 +6,7 @@ import { createAccess } from './2026.12.02T07.00.00.create-access';
 import { createRollups } from './2026.12.02T07.10.00.create-rollups';
 import { createAlerts } from './2026.12.02T07.20.00.create-alerts';
 import { createInstallerRecords } from './2026.12.02T07.30.00.create-installer-records';
+import { alterReadingsKey } from './2026.12.02T08.00.00.alter-readings-key';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
 export const migrations: Migration[] = [
@@ -16,4 +17,5 @@ export const migrations: Migration[] = [
   createRollups,
   createAlerts,
   createInstallerRecords,
+  alterReadingsKey,
 ];

@@ -41,6 +41,8 @@ export async function connectDevice(
     clientId: `cw-sim-${device.id}`,
     clean: false,
     keepalive: 30,
+    // A broker that answers "server unavailable" (its database away) is retried, not given up on.
+    reconnectOnConnackError: true,
   });
   // mqtt.js reconnects by itself after a network error; say so rather than crash on an unhandled 'error'.
   client.on('error', (error) => deps.stdout(`${device.id}: connection error: ${error.message}\n`));

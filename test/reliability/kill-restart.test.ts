@@ -147,8 +147,9 @@ it('waits out PostgreSQL stopping fast and immediate, then resumes ingest with n
             `${o.acked} acknowledged while down, ` +
             `${o.ackedAtStop.size} acknowledged before the stop, ${ackedLost} of them lost`,
         );
-        expect({ health: o.health, acked: o.acked, ackedLost }).toEqual({
+        expect({ health: o.health, api: o.api, acked: o.acked, ackedLost }).toEqual({
           health: 503,
+          api: '503 database_unavailable',
           acked: 0,
           ackedLost: 0,
         });

@@ -138,10 +138,9 @@ it('holds sign-in and history answers while a fleet of monitors publishes, stori
   expect({ signIn: signIns.statuses, history: history.statuses }).toEqual({ signIn: [200], history: [200] });
 });
 
-// Known defect, kept visible: readings are keyed by (system, measured time), so when two monitors of one
-// system measure in the same millisecond the second reading is acknowledged and silently dropped (neither
-// stored nor counted as refused). Remove `.failing` once the key includes the device.
-it.failing('stores the readings of two monitors of one system measured at the same time', async () => {
+// Readings are keyed by (system, measured time, device): two monitors of one system measuring in the same
+// millisecond are two readings, not a duplicate.
+it('stores the readings of two monitors of one system measured at the same time', async () => {
   const at = Date.now() - 60_000;
   const [a, b] = [demo.devices.find((d) => d.system === 'cabin')!, { id: 'cw-load-01', secret: '' }];
   const [row] = await sequelize.query<{ n: string }>(

@@ -118,10 +118,9 @@ const reading = (measuredAt: number, current: number): BatteryReading => ({
   temperature: 8,
 });
 
-// Known defect, kept visible: RECOMPUTE_MINUTES (server/src/telemetry/rollups-sql.ts) recomputes only the
-// minutes a batch's readings fall in, but a late reading also shortens the gap of the next stored reading,
-// whose minute may be another one. Remove `.failing` once the next reading's minute is recomputed too.
-it.failing('recomputes the rollup of a later minute when a late reading shortens its gap', async () => {
+// A late reading also shortens the gap of the next stored reading, whose minute may be another one: that
+// minute must be recomputed too (server/src/telemetry/rollups-sql.ts).
+it('recomputes the rollup of a later minute when a late reading shortens its gap', async () => {
   const [{ last }] = await node.database.query<{ last: number }>(
     'SELECT (extract(epoch FROM max(measured_at)) * 1000)::float8 AS last FROM readings WHERE system_id = :id',
     { replacements: { id: cabinSystemId }, type: QueryTypes.SELECT },

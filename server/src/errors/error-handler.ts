@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler } from 'express';
+import { ConnectionError, TimeoutError } from 'sequelize';
 import { ZodError } from 'zod';
 import { AnalyticsSettingError, InstallerInputError } from '@cellwarden/shared';
 import { AppError } from './app-error';
@@ -23,6 +24,13 @@ function toAppError(error: unknown): AppError {
     const field = issue.path.join('.') || undefined;
     return new AppError('invalid_input', 400, field ? `${field}: ${issue.message}` : issue.message, field);
   }
+  // PostgreSQL away or restarting: the caller may retry; this is not our bug and not theirs.
+  if (error instanceof ConnectionError || error instanceof TimeoutError || isConnectionRefusal(error))
+    return new AppError(
+      'database_unavailable',
+      503,
+      'The database is not reachable right now; try again shortly',
+    );
   // The shared computations validate their own inputs and name the field; that is the caller's bad input.
   if (error instanceof InstallerInputError || error instanceof AnalyticsSettingError)
     return new AppError('invalid_input', 400, error.message, error.field);
@@ -35,4 +43,12 @@ function toAppError(error: unknown): AppError {
     return new AppError('bad_request', bodyError.status, bodyError.message ?? 'Bad request');
   }
   return new AppError('internal_error', 500, 'Something went wrong on our side');
+}
+
+// pg's own errors while the server shuts down or restarts (57P01 admin shutdown, 57P03 cannot connect now).
+function isConnectionRefusal(error: unknown): boolean {
+  const code =
+    (error as { original?: { code?: string }; parent?: { code?: string } })?.original?.code ??
+    (error as { parent?: { code?: string } })?.parent?.code;
+  return code === '57P01' || code === '57P03' || code === 'ECONNREFUSED' || code === 'ECONNRESET';
 }

@@ -52,19 +52,19 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
         return `(${Array.from({ length: COLUMNS }, (_, c) => `$${base + c + 1}`).join(', ')})`;
       });
       return sequelize.transaction(async (transaction) => {
-        const inserted = await sequelize.query<{ systemId: string; measuredAt: Date }>(
+        const inserted = await sequelize.query<{ systemId: string; measuredAt: Date; deviceId: string }>(
           `INSERT INTO readings (system_id, measured_at, device_id, voltage, current, temperature,
              state_of_charge, power, source_currents, received_at)
-           VALUES ${tuples.join(', ')} ON CONFLICT (system_id, measured_at) DO NOTHING
-           RETURNING system_id AS "systemId", measured_at AS "measuredAt"`,
+           VALUES ${tuples.join(', ')} ON CONFLICT (system_id, measured_at, device_id) DO NOTHING
+           RETURNING system_id AS "systemId", measured_at AS "measuredAt", device_id AS "deviceId"`,
           { bind, type: QueryTypes.SELECT, transaction },
         );
         if (inserted.length === 0) return [];
         const touched = [inserted.map((r) => r.systemId), inserted.map((r) => r.measuredAt)];
         await sequelize.query(RECOMPUTE_MINUTES, { bind: touched, transaction });
         await sequelize.query(RECOMPUTE_HOURS, { bind: touched, transaction });
-        const stored = new Set(inserted.map((r) => `${r.systemId}/${r.measuredAt.getTime()}`));
-        return rows.filter((r) => stored.delete(`${r.systemId}/${r.reading.measuredAt}`));
+        const stored = new Set(inserted.map((r) => `${r.systemId}/${r.measuredAt.getTime()}/${r.deviceId}`));
+        return rows.filter((r) => stored.delete(`${r.systemId}/${r.reading.measuredAt}/${r.deviceId}`));
       });
     },
 

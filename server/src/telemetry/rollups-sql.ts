@@ -5,6 +5,22 @@
 // Energy between two readings is counted only across gaps up to this long; a longer gap is a silence, not a load.
 export const MAX_INTEGRATION_GAP_SECONDS = 300;
 
+// The stored readings' times, and for each the next reading after it: a late reading shortens that one's gap,
+// so its bucket changes too even when it lies in another minute or hour.
+const AFFECTED = `inserted AS (
+  SELECT * FROM unnest($1::uuid[], $2::timestamptz[]) AS t(system_id, measured_at)
+), affected AS (
+  SELECT system_id, measured_at FROM inserted
+  UNION
+  SELECT i.system_id, n.measured_at FROM inserted i
+  CROSS JOIN LATERAL (
+    SELECT r.measured_at FROM readings r
+    WHERE r.system_id = i.system_id AND r.measured_at > i.measured_at
+      AND r.measured_at <= i.measured_at + interval '${MAX_INTEGRATION_GAP_SECONDS} seconds'
+    ORDER BY r.measured_at LIMIT 1
+  ) n
+)`;
+
 const METRICS = ['voltage', 'current', 'temperature'] as const;
 
 const metricAggregates = METRICS.map(
@@ -35,9 +51,8 @@ const overwrite = ROLLUP_COLUMNS.slice(2)
 
 /** Recomputes rollups_1m for the (system, minute) pairs of the readings bound as $1 uuid[] and $2 timestamptz[]. */
 export const RECOMPUTE_MINUTES = `
-WITH touched AS (
-  SELECT DISTINCT system_id, date_trunc('minute', measured_at) AS bucket
-  FROM unnest($1::uuid[], $2::timestamptz[]) AS t(system_id, measured_at)
+WITH ${AFFECTED}, touched AS (
+  SELECT DISTINCT system_id, date_trunc('minute', measured_at) AS bucket FROM affected
 ), source AS (
   SELECT t.system_id, t.bucket, r.measured_at, r.voltage, r.current, r.temperature, r.state_of_charge,
     least(extract(epoch FROM r.measured_at - lag(r.measured_at) OVER w), ${MAX_INTEGRATION_GAP_SECONDS}) / 3600.0 AS hours
@@ -63,9 +78,8 @@ const lastOf = (column: string) => `(array_agg(${column} ORDER BY bucket_start D
 
 /** Recomputes rollups_1h from rollups_1m for the hours of the readings bound as $1 uuid[] and $2 timestamptz[]. */
 export const RECOMPUTE_HOURS = `
-WITH touched AS (
-  SELECT DISTINCT system_id, date_trunc('hour', measured_at) AS bucket
-  FROM unnest($1::uuid[], $2::timestamptz[]) AS t(system_id, measured_at)
+WITH ${AFFECTED}, touched AS (
+  SELECT DISTINCT system_id, date_trunc('hour', measured_at) AS bucket FROM affected
 )
 INSERT INTO rollups_1h (${ROLLUP_COLUMNS.join(', ')})
 SELECT m.system_id, t.bucket, sum(reading_count),
