@@ -136,7 +136,16 @@ export async function startServer(
       hub.publish({ systemId: alert.systemId, message: { type: 'alert', systemId: alert.systemId, alert } }),
   });
   const settingsRepository = createSettingsRepository(sequelize);
-  const analytics = createLiveAnalytics({ settings: settingsRepository, alerts, logger, now });
+  const analytics = createLiveAnalytics({
+    settings: settingsRepository,
+    alerts,
+    readings: readingsRepository,
+    alertsRepository,
+    publish: (alert) =>
+      hub.publish({ systemId: alert.systemId, message: { type: 'alert', systemId: alert.systemId, alert } }),
+    logger,
+    now,
+  });
   const settings = createSettingsService({
     repository: settingsRepository,
     systems,

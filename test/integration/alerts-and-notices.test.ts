@@ -166,3 +166,38 @@ it('keeps preferences per person and refuses an unknown flag kind', async () => 
   expect(bad.status).toBe(400);
   expect(bad.body.error.field).toMatch(/^emailFlags/);
 });
+
+it("records the flags a device's late backlog held, as past alerts on the right times", async () => {
+  const device = await connectAsync(node.mqttUrl, {
+    username: van.id,
+    password: van.secret,
+    clientId: `late-${Date.now()}`,
+  });
+  const publish = (readings: BatteryReading[]) =>
+    device.publishAsync(readingsTopic(van.id), JSON.stringify(encodeReadingPack(van.id, readings)), {
+      qos: 1,
+    });
+  const now = Date.now();
+  await publish(series(5, now, 7, -1.5)); // the live state is at "now" before the backlog arrives
+  // Three hours ago, while the van was out of coverage: 20 minutes charging a −5 °C pack, then 30 warm.
+  const t0 = now - 3 * 3600_000;
+  const backlog = [
+    ...series(240, t0 + 20 * 60_000 - 5000, -5, 12),
+    ...series(360, t0 + 50 * 60_000 - 5000, 8, -2),
+  ];
+  for (let i = 0; i < backlog.length; i += 50) await publish(backlog.slice(i, i + 50));
+  let past: { startedAt: number; endedAt: number | null } | undefined;
+  await until(async () => {
+    const listed = await request(node.baseUrl)
+      .get(`/api/systems/${vanId}/alerts`)
+      .query({ from: new Date(t0 - 60_000).toISOString(), to: new Date(t0 + 3600_000).toISOString() })
+      .set(auth());
+    past = listed.body.alerts.find((a: { kind: string }) => a.kind === 'cold-charging');
+    return past !== undefined;
+  }, 10_000);
+  // It starts after the flag's 30 s minimum duration and ends 15 min (its release delay) after warming.
+  expect(past!.startedAt - t0).toBeGreaterThanOrEqual(30_000);
+  expect(past!.startedAt - t0).toBeLessThan(60_000);
+  expect(past!.endedAt! - (t0 + 20 * 60_000)).toBeGreaterThanOrEqual(15 * 60_000);
+  await device.endAsync();
+});

@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { AlertEvent, FlagKind, FlagSeverity } from '@cellwarden/shared';
+import type { AlertEvent, FlagEpisode, FlagKind, FlagSeverity } from '@cellwarden/shared';
 
 const ms = (column: string) => `(extract(epoch FROM ${column}) * 1000)::float8`;
 const SELECT_ALERT = `SELECT a.id, a.system_id AS "systemId", a.kind, a.severity,
@@ -31,6 +31,21 @@ export function createAlertsRepository(sequelize: Sequelize) {
       );
       const alert = (await this.findOpen(event.systemId, event.kind))!;
       return { alert, created: inserted.length > 0 };
+    },
+
+    /** Records a past episode found in a late backlog, unless an event of its kind already overlaps it. */
+    async insertPastEpisode(systemId: string, episode: FlagEpisode): Promise<AlertEvent | undefined> {
+      const rows = await select(
+        `INSERT INTO alert_events (system_id, kind, severity, started_at, ended_at, peak_value, unit)
+         SELECT :systemId, :kind, :severity, to_timestamp(:startedAt / 1000.0), to_timestamp(:endedAt / 1000.0), :peak, :unit
+         WHERE NOT EXISTS (
+           SELECT 1 FROM alert_events WHERE system_id = :systemId AND kind = :kind
+             AND started_at <= to_timestamp(:endedAt / 1000.0)
+             AND coalesce(ended_at, 'infinity') >= to_timestamp(:startedAt / 1000.0))
+         RETURNING id`,
+        { systemId, ...episode },
+      );
+      return rows[0] && (await select(`${SELECT_ALERT} WHERE a.id = :id`, { id: rows[0].id }))[0];
     },
 
     async findOpen(systemId: string, kind: FlagKind): Promise<AlertEvent | undefined> {

@@ -2,6 +2,7 @@ import {
   analyticsConfigFromSettings,
   checkSilence,
   deriveSystemState,
+  flagEpisodes,
   resolveSystemAnalyticsSettings,
   type BatteryReading,
   type DerivedState,
@@ -11,8 +12,14 @@ import {
 import type { Logger } from '../logger';
 import type { SettingsRepository } from '../settings/settings-repository';
 import { utcOffsetMinutes } from '../settings/utc-offset';
-import type { ReadingRow } from '../telemetry/readings-repository';
+import type { ReadingRow, ReadingsRepository } from '../telemetry/readings-repository';
+import type { AlertsRepository } from './alerts-repository';
 import type { AlertsService } from './alerts-service';
+
+// A late backlog is replayed this long after its last pack arrived (packs come in quick succession) …
+const REPLAY_DELAY_MS = 2000;
+// … from this long before its first reading, so flags that need a run-up (minimum durations, trends) see it.
+const REPLAY_LEAD_MS = 30 * 60_000;
 
 // Settings are re-read at least this often, so a zone's change to or from summer time reaches the projection.
 const SETTINGS_TTL_MS = 10 * 60_000;
@@ -29,6 +36,9 @@ interface SystemRuntime {
   lastMeasuredAt?: number;
   /** Keeps one system's readings in order while the next batch arrives. */
   queue: Promise<unknown>;
+  /** Earliest measured time of late readings not yet replayed, and the timer that will replay them. */
+  lateFrom?: number;
+  replayTimer?: NodeJS.Timeout;
 }
 
 /**
@@ -38,6 +48,11 @@ interface SystemRuntime {
 export function createLiveAnalytics(deps: {
   settings: SettingsRepository;
   alerts: AlertsService;
+  /** For replaying a late backlog's span from the stored readings. */
+  readings: ReadingsRepository;
+  alertsRepository: AlertsRepository;
+  /** Pushes a past alert found in a backlog to the live subscribers. */
+  publish: (alert: import('@cellwarden/shared').AlertEvent) => void;
   logger: Logger;
   now: () => number;
 }) {
@@ -84,7 +99,48 @@ export function createLiveAnalytics(deps: {
     return { derived: result.derived, events: result.events, systemId };
   }
 
+  /**
+   * Readings older than the newest seen cannot go through the live state (its flags have moved on): their
+   * span is replayed from the stored readings into a fresh state, and the episodes it held are recorded as
+   * past alerts (not e-mailed: they are history by the time they are known).
+   */
+  function scheduleReplay(systemId: string, runtime: SystemRuntime, measuredAt: number) {
+    runtime.lateFrom = Math.min(runtime.lateFrom ?? Number.POSITIVE_INFINITY, measuredAt);
+    if (runtime.replayTimer) clearTimeout(runtime.replayTimer);
+    runtime.replayTimer = setTimeout(() => void replay(systemId, runtime), REPLAY_DELAY_MS);
+    runtime.replayTimer.unref();
+  }
+
+  async function replay(systemId: string, runtime: SystemRuntime) {
+    const from = runtime.lateFrom!;
+    runtime.lateFrom = undefined;
+    runtime.replayTimer = undefined;
+    try {
+      const readings = await deps.readings.listRaw(
+        systemId,
+        new Date(from - REPLAY_LEAD_MS),
+        new Date((runtime.lastMeasuredAt ?? from) + 1),
+      );
+      for (const episode of flagEpisodes(readings, runtime.settings)) {
+        if (episode.endedAt < from) continue;
+        const alert = await deps.alertsRepository.insertPastEpisode(systemId, episode);
+        if (alert) deps.publish(alert);
+      }
+    } catch (error) {
+      deps.logger.warn('late readings not replayed', { systemId, error: (error as Error).message });
+    }
+  }
+
   return {
+    /** Flushes pending replays at once (shutdown and tests). */
+    async replayNow(): Promise<void> {
+      for (const [systemId, runtime] of runtimes)
+        if (runtime.replayTimer) {
+          clearTimeout(runtime.replayTimer);
+          await replay(systemId, runtime);
+        }
+    },
+
     /** Runs the analytics over stored rows (in order per system); resolves with each row's derived state. */
     async process(rows: readonly ReadingRow[]): Promise<(DerivedState | null)[]> {
       const results: Promise<DerivedState | null>[] = rows.map(async (row) => {
@@ -92,6 +148,10 @@ export function createLiveAnalytics(deps: {
           const runtime = await runtimeFor(row.systemId);
           if (!runtime) return null;
           const turn = runtime.queue.then(async () => {
+            if (runtime.lastMeasuredAt !== undefined && row.reading.measuredAt < runtime.lastMeasuredAt) {
+              scheduleReplay(row.systemId, runtime, row.reading.measuredAt);
+              return runtime.derived ?? null;
+            }
             const { derived, events } = step(runtime, row.systemId, row.reading);
             if (events.length > 0) await deps.alerts.record(row.systemId, runtime, events);
             return derived;

@@ -33,3 +33,5 @@ export {
   thresholdSettingDefaults,
   DEFAULT_MORNING_TIME,
 } from './settings-mapping';
+export type { FlagEpisode } from './flag-episodes';
+export { flagEpisodes } from './flag-episodes';
