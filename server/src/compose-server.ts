@@ -223,11 +223,13 @@ export async function startServer(
     systems,
     audit,
     brokerPort: () => mqttPort,
+    onCredentialsChanged: (deviceId) => brokerPolicy.credentialsChanged(deviceId),
   });
+  const brokerPolicy = createBrokerPolicy({ devices, ingest, logger });
   const broker = await startMqttBroker({
     host: config.HOST,
     port: config.MQTT_PORT,
-    policy: createBrokerPolicy({ devices, ingest, logger }),
+    policy: brokerPolicy,
     logger,
     mq: cluster?.broker.mq,
     persistence: cluster?.broker.persistence,

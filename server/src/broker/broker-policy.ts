@@ -21,7 +21,9 @@ export function createBrokerPolicy(deps: {
   logger: Logger;
   /** How often an open connection's credentials are checked again, milliseconds (default 30 s). */
   recheckMs?: number;
-}): Pick<AedesOptions, 'authenticate' | 'authorizePublish' | 'authorizeSubscribe'> {
+}): Pick<AedesOptions, 'authenticate' | 'authorizePublish' | 'authorizeSubscribe'> & {
+  credentialsChanged(deviceId: string): void;
+} {
   const sessions = createDeviceSessions({ devices: deps.devices, recheckMs: deps.recheckMs });
 
   // Resolves to the refusal, or null once the payload is stored (or refused as bad input and counted).
@@ -52,6 +54,9 @@ export function createBrokerPolicy(deps: {
   }
 
   return {
+    /** Revocation and rotation take effect on open connections at their next publish, not 30 s later. */
+    credentialsChanged: (deviceId) => sessions.credentialsChanged(deviceId),
+
     authenticate(client, username, password, done) {
       const secret = password ? Buffer.from(password).toString('utf8') : '';
       deps.devices.authenticate(username ?? '', secret).then(

@@ -22,6 +22,8 @@ export function createDeviceSessions(deps: {
   recheckMs?: number;
 }) {
   const sessions = new WeakMap<Client, DeviceSession>();
+  // When each device's credentials last changed (revoked, rotated): sessions checked before then check again.
+  const changedAt = new Map<string, number>();
   const now = deps.now ?? Date.now;
   const recheckMs = deps.recheckMs ?? CREDENTIAL_RECHECK_MS;
 
@@ -39,6 +41,10 @@ export function createDeviceSessions(deps: {
   }
 
   return {
+    /** A device was revoked or its secret rotated: its open connections are checked again at their next publish. */
+    credentialsChanged(deviceId: string): void {
+      changedAt.set(deviceId, now() + 1);
+    },
     /** Remembers the device a connection authenticated as, with the secret to check again later. */
     open(client: Client, device: AuthenticatedDevice, secret: string): void {
       sessions.set(client, { device, secret, checkedAt: now() });
@@ -47,7 +53,8 @@ export function createDeviceSessions(deps: {
     async current(client: Client | null): Promise<AuthenticatedDevice | undefined> {
       const session = client ? sessions.get(client) : undefined;
       if (!session) return undefined;
-      if (now() - session.checkedAt < recheckMs) return session.device;
+      const changed = changedAt.get(session.device.deviceId) ?? Number.NEGATIVE_INFINITY;
+      if (now() - session.checkedAt < recheckMs && changed < session.checkedAt) return session.device;
       session.checking ??= recheck(session).finally(() => (session.checking = undefined));
       return (await session.checking) ? session.device : undefined;
     },

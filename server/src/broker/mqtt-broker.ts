@@ -24,7 +24,14 @@ export async function startMqttBroker(options: {
     ...(options.mq && { mq: options.mq }),
     ...(options.persistence && { persistence: options.persistence }),
   };
-  const broker = await Aedes.createBroker({ ...options.policy, ...stores, heartbeatInterval: 30000 });
+  const { authenticate, authorizePublish, authorizeSubscribe } = options.policy;
+  const broker = await Aedes.createBroker({
+    authenticate,
+    authorizePublish,
+    authorizeSubscribe,
+    ...stores,
+    heartbeatInterval: 30000,
+  });
   broker.on('clientError', (client, error) =>
     options.logger.debug('mqtt client error', { clientId: client.id, error: error.message }),
   );

@@ -24,6 +24,8 @@ export function createDevicesService(deps: {
   systems?: SystemsService;
   audit?: AuditService;
   brokerPort?: () => number;
+  /** Told when a device is revoked or its secret rotated, so the broker checks open connections again. */
+  onCredentialsChanged?: (deviceId: string) => void;
 }) {
   const managed = async (user: PublicUser, systemId: string) =>
     deps.systems!.getFor(user, systemId, 'manage-devices');
@@ -80,6 +82,7 @@ export function createDevicesService(deps: {
       const secret = newSecret();
       if (!(await deps.repository.setSecret(system.id, id, await hashPassword(secret))))
         throw notFound('Device');
+      deps.onCredentialsChanged?.(id);
       await deps.audit?.record(system.id, user, 'device.rotated', id);
       return credentials(system.id, id, secret);
     },
@@ -87,6 +90,7 @@ export function createDevicesService(deps: {
     async revoke(user: PublicUser, systemId: string, id: string): Promise<void> {
       const system = await managed(user, systemId);
       if (!(await deps.repository.revoke(system.id, id))) throw notFound('Device');
+      deps.onCredentialsChanged?.(id);
       await deps.audit?.record(system.id, user, 'device.revoked', id);
     },
   };

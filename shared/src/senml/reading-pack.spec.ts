@@ -163,6 +163,14 @@ describe('parseReadingPayload', () => {
     expect(parseReadingPayload(text, { now })).toEqual(expected);
   });
 
+  it('ignores a leading byte order mark in bytes and strings alike', () => {
+    // RFC 8259 §8.1: a parser may ignore a byte order mark rather than treat it as an error.
+    const text = `\ufeff${JSON.stringify(encodeReadingPack('van-1', [first]))}`;
+    const expected = { deviceId: 'van-1', readings: [first] };
+    expect(parseReadingPayload(new TextEncoder().encode(text), { now })).toEqual(expected);
+    expect(parseReadingPayload(text, { now })).toEqual(expected);
+  });
+
   it('refuses payloads over 64 KiB before parsing them', () => {
     const error = payloadRefusal(new Uint8Array(64 * 1024 + 1));
     expect(error.code).toBe('payload_too_large');

@@ -263,7 +263,8 @@ function payloadText(payload: Uint8Array | string): string {
       `payload must be at most ${MAX_READING_PAYLOAD_BYTES} bytes; got at least ${size}`,
     );
   }
-  if (typeof payload === 'string') return payload;
+  // RFC 8259 §8.1: a parser may ignore a leading byte order mark; the byte form loses it in TextDecoder.
+  if (typeof payload === 'string') return payload.startsWith('\ufeff') ? payload.slice(1) : payload;
   try {
     // RFC 8259 §8.1: JSON exchanged between systems is UTF-8; fatal refuses malformed bytes instead of
     // silently replacing them.
