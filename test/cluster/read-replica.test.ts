@@ -14,7 +14,9 @@ import { signInAs, until } from '../support/http-session';
 jest.setTimeout(180000);
 
 // A primary and replica of this test's own (never the shared test cluster).
-const pair = createReplicaPair({ name: 'pg-cluster', primaryPort: 54341, replicaPort: 54342 });
+// Fixed ports below Linux's ephemeral range (32768–60999), so no client socket or port-0 listener of another
+// test can be holding them when the clusters start.
+const pair = createReplicaPair({ name: 'pg-cluster', primaryPort: 26341, replicaPort: 26342 });
 const DATABASE = 'cellwarden';
 const cabin = DEMO_DEVICES.find((d) => d.system === 'cabin')!;
 const HOUR = 3600_000;
