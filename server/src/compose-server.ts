@@ -1,4 +1,5 @@
 import { createServer, type Server } from 'node:http';
+import type { AlertEvent } from '@cellwarden/shared';
 import type { AddressInfo } from 'node:net';
 import { createGrantsRepository } from './access/grants-repository';
 import { createGrantsService } from './access/grants-service';
@@ -126,14 +127,15 @@ export async function startServer(
   const readings = createReadingsService({ systems, repository: readingsRepository, audit, now });
   const hub = cluster?.hub ?? createReadingsHub();
   const alertsRepository = createAlertsRepository(sequelize);
+  const publishAlert = (alert: AlertEvent) =>
+    hub.publish({ systemId: alert.systemId, message: { type: 'alert', systemId: alert.systemId, alert } });
   const alerts = createAlertsService({
     repository: alertsRepository,
     systems,
     audit,
     notices: createAlertNotices({ repository: alertsRepository, mailer, logger, now }),
     logger,
-    publish: (alert) =>
-      hub.publish({ systemId: alert.systemId, message: { type: 'alert', systemId: alert.systemId, alert } }),
+    publish: publishAlert,
   });
   const settingsRepository = createSettingsRepository(sequelize);
   const analytics = createLiveAnalytics({
@@ -141,8 +143,7 @@ export async function startServer(
     alerts,
     readings: readingsRepository,
     alertsRepository,
-    publish: (alert) =>
-      hub.publish({ systemId: alert.systemId, message: { type: 'alert', systemId: alert.systemId, alert } }),
+    publish: publishAlert,
     logger,
     now,
   });

@@ -4,6 +4,7 @@ import type { AuditService } from '../audit/audit-service';
 import { invalidInput, notFound } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
 import type { GrantsRepository } from './grants-repository';
+import { isUuid } from '../database/sql-values';
 
 /** Longest a grant may run before the owner must renew it. */
 export const MAX_GRANT_MS = 366 * 24 * 3600 * 1000;
@@ -73,9 +74,7 @@ export function createGrantsService(deps: {
 
     async revoke(user: PublicUser, systemId: string, grantId: string): Promise<void> {
       const system = await deps.systems.getFor(user, systemId, 'manage-grants');
-      const grant = /^[0-9a-f-]{36}$/i.test(grantId)
-        ? await deps.repository.find(system.id, grantId, deps.now())
-        : undefined;
+      const grant = isUuid(grantId) ? await deps.repository.find(system.id, grantId, deps.now()) : undefined;
       if (!grant) throw notFound('Grant');
       if (await deps.repository.revoke(system.id, grant.id)) {
         await deps.audit.record(

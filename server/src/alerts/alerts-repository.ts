@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AlertEvent, FlagEpisode, FlagKind, FlagSeverity } from '@cellwarden/shared';
+import { epochMs as ms } from '../database/sql-values';
 
-const ms = (column: string) => `(extract(epoch FROM ${column}) * 1000)::float8`;
 const SELECT_ALERT = `SELECT a.id, a.system_id AS "systemId", a.kind, a.severity,
   ${ms('a.started_at')} AS "startedAt", ${ms('a.ended_at')} AS "endedAt", a.peak_value AS "peakValue", a.unit,
   ${ms('a.acknowledged_at')} AS "acknowledgedAt",

@@ -5,6 +5,7 @@ import type { Logger } from '../logger';
 import type { SystemsService } from '../systems/systems-service';
 import type { AlertNotices } from './alert-notices';
 import type { AlertsRepository } from './alerts-repository';
+import { isUuid } from '../database/sql-values';
 
 /** Alert events: recorded from the flag engine's transitions, listed and acknowledged through the policy. */
 export function createAlertsService(deps: {
@@ -29,7 +30,7 @@ export function createAlertsService(deps: {
       note: string,
     ): Promise<AlertEvent> {
       const system = await deps.systems.getFor(user, systemId, 'configure');
-      const alert = /^[0-9a-f-]{36}$/i.test(alertId)
+      const alert = isUuid(alertId)
         ? await deps.repository.acknowledge(system.id, alertId, user.id, note)
         : undefined;
       if (!alert) throw notFound('Alert');

@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { CommissioningCheck, CommissioningCheckRequest } from '@cellwarden/shared';
+import { epochMs as ms } from '../database/sql-values';
 
-const ms = (column: string) => `(extract(epoch FROM ${column}) * 1000)::float8`;
 const SELECT_CHECK = `SELECT c.id, c.system_id AS "systemId", c.request->>'sourceId' AS "sourceId",
   (c.request->>'ratedCurrentA')::float8 AS "ratedCurrentA",
   coalesce((c.request->>'tolerancePercent')::float8, 10) AS "tolerancePercent",

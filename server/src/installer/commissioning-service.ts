@@ -16,6 +16,7 @@ import type { Logger } from '../logger';
 import type { SettingsRepository } from '../settings/settings-repository';
 import type { SystemsService } from '../systems/systems-service';
 import type { CommissioningRepository } from './commissioning-repository';
+import { isUuid } from '../database/sql-values';
 
 // Progress is written at most this often while a check runs; the dashboard polls it.
 const PROGRESS_SAVE_MS = 1000;
@@ -129,9 +130,7 @@ export function createCommissioningService(deps: {
 
     async get(user: PublicUser, systemId: string, checkId: string) {
       const system = await deps.systems.getFor(user, systemId, 'view');
-      const check = /^[0-9a-f-]{36}$/i.test(checkId)
-        ? await deps.repository.find(system.id, checkId)
-        : undefined;
+      const check = isUuid(checkId) ? await deps.repository.find(system.id, checkId) : undefined;
       if (!check) throw notFound('Commissioning check');
       const { request: _request, ...rest } = check;
       return rest;

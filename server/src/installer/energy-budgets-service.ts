@@ -10,6 +10,7 @@ import {
 import { notFound } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
 import type { ReadingsRepository } from '../telemetry/readings-repository';
+import { isUuid } from '../database/sql-values';
 
 const DAY_MS = 24 * 3600_000;
 const SELECT_BUDGET = `SELECT id, name, budget, (extract(epoch FROM created_at) * 1000)::float8 AS "createdAt",
@@ -28,7 +29,7 @@ export function createEnergyBudgetsService(deps: {
       type: QueryTypes.SELECT,
     });
   const find = async (systemId: string, budgetId: string) => {
-    const [budget] = /^[0-9a-f-]{36}$/i.test(budgetId)
+    const [budget] = isUuid(budgetId)
       ? await select('WHERE system_id = :systemId AND id = :budgetId', { systemId, budgetId })
       : [];
     if (!budget) throw notFound('Energy budget');

@@ -5,6 +5,7 @@ import type { SystemsService } from '../systems/systems-service';
 import { acceptUpload } from '../uploads/upload-policy';
 import type { UploadStorage } from '../uploads/upload-storage';
 import type { UploadsRepository } from './uploads-repository';
+import { isUuid } from '../database/sql-values';
 
 const listing = ({ storedName: _stored, ...upload }: UploadListing & { storedName: string }): UploadListing =>
   upload;
@@ -60,9 +61,7 @@ export function createUploadsService(deps: {
     /** The stored record and an open stream of its bytes. */
     async open(user: PublicUser, systemId: string, uploadId: string) {
       const system = await deps.systems.getFor(user, systemId, 'view');
-      const record = /^[0-9a-f-]{36}$/i.test(uploadId)
-        ? await deps.repository.find(system.id, uploadId)
-        : undefined;
+      const record = isUuid(uploadId) ? await deps.repository.find(system.id, uploadId) : undefined;
       if (!record) throw notFound('Upload');
       return { record, stream: await deps.storage.open(system.id, record.storedName) };
     },

@@ -1,10 +1,9 @@
 import type { PublicUser } from '@cellwarden/shared';
 import { decideAccess, type AccessDecision, type SystemAction } from '../access/access-policy';
 import type { GrantsRepository } from '../access/grants-repository';
+import { isUuid } from '../database/sql-values';
 import { forbidden, notFound } from '../errors/app-error';
 import type { StoredSystem, SystemsRepository } from './systems-repository';
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** A system together with what the asking person may do with it. */
 export interface SystemWithAccess {
@@ -19,7 +18,7 @@ export function createSystemsService(deps: {
   now: () => number;
 }) {
   async function open(user: PublicUser, systemId: string): Promise<SystemWithAccess | undefined> {
-    const system = UUID.test(systemId) ? await deps.repository.findById(systemId) : undefined;
+    const system = isUuid(systemId) ? await deps.repository.findById(systemId) : undefined;
     if (!system) return undefined;
     const now = deps.now();
     const access = decideAccess(user, system, await deps.grants.factsForSystem(system.id, now), now);

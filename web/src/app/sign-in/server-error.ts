@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import type { AbstractControl, FormGroup } from '@angular/forms';
-import type { ApiErrorBody } from '@cellwarden/shared';
+import { apiProblem } from '../core/api-error';
 
 /** What a failed API call means for a form: the message, and the field it belongs under (if any). */
 export interface ServerError {
@@ -8,15 +8,13 @@ export interface ServerError {
   field: string | null;
 }
 
-/** Reads the `{ error: { code, message, field? } }` body of a failed call, or says what else went wrong. */
+/** The body of a failed call as a form shows it (read by `apiProblem`), or the form's own fallback. */
 export function serverErrorOf(error: unknown, fallback: string): ServerError {
-  if (error instanceof HttpErrorResponse) {
-    const body = error.error as Partial<ApiErrorBody> | null;
-    if (body?.error?.message) return { message: body.error.message, field: body.error.field ?? null };
-    if (error.status === 0) {
-      return { message: 'The server cannot be reached. Check the connection and try again.', field: null };
-    }
-  }
+  const problem = apiProblem(error);
+  if (problem.code !== 'unexpected' && !String(problem.code).startsWith('http-'))
+    return { message: problem.message, field: problem.field ?? null };
+  if (problem.status === 0 && error instanceof HttpErrorResponse)
+    return { message: 'The server cannot be reached. Check the connection and try again.', field: null };
   return { message: fallback, field: null };
 }
 
