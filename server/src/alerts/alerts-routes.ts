@@ -2,15 +2,14 @@ import { Router } from 'express';
 import { z } from 'zod';
 import type { SystemStatus } from '@cellwarden/shared';
 import type { SystemsService } from '../systems/systems-service';
+import { queryTimeSchema } from '../telemetry/query-time';
 import type { AlertsService } from './alerts-service';
 import type { LiveAnalytics } from './live-analytics';
 
 const DAY_MS = 24 * 3600_000;
-const time = (field: string) =>
-  z.iso.datetime({ offset: true, error: `${field} must be an ISO 8601 time` }).transform((t) => new Date(t));
 const alertsQuery = z.object({
-  from: time('from').optional(),
-  to: time('to').optional(),
+  from: queryTimeSchema('from').optional(),
+  to: queryTimeSchema('to').optional(),
   active: z.enum(['true', 'false'], { error: 'active must be true or false' }).optional(),
 });
 const acknowledgement = z.object({

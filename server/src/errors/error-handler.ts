@@ -7,7 +7,13 @@ import type { Logger } from '../logger';
 
 /** The one place errors become HTTP answers: `{ error: { code, message, field } }`. */
 export function createErrorHandler(logger: Logger): ErrorRequestHandler {
-  return (error, _req, res, _next) => {
+  return (error, _req, res, next) => {
+    // Once a streamed answer has begun, no error body can follow: Express's own handler closes the
+    // connection, so the client sees a cut answer rather than a truncated one that looks complete.
+    if (res.headersSent) {
+      logger.error('answer failed after its headers were sent', { error: String(error?.stack ?? error) });
+      return next(error);
+    }
     const answer = toAppError(error);
     if (answer.status >= 500)
       logger.error('request failed', { code: answer.code, error: String(error?.stack ?? error) });

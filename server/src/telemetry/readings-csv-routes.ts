@@ -1,26 +1,26 @@
 import express, { Router } from 'express';
 import { z } from 'zod';
+import { invalidInput } from '../errors/app-error';
+import { queryTimeSchema } from './query-time';
 import type { ReadingsCsvService } from './readings-csv-service';
 
 const MAX_RANGE_MS = 400 * 24 * 3600_000;
-const exportQuery = z
-  .object({
-    from: z.iso
-      .datetime({ offset: true, error: 'from must be an ISO 8601 time' })
-      .transform((t) => new Date(t)),
-    to: z.iso.datetime({ offset: true, error: 'to must be an ISO 8601 time' }).transform((t) => new Date(t)),
-  })
-  .refine((q) => q.from < q.to, { message: 'from must be before to', path: ['from'] })
-  .refine((q) => q.to.getTime() - q.from.getTime() <= MAX_RANGE_MS, {
-    message: 'range must be at most 400 days',
-    path: ['from'],
-  });
+const exportQuery = z.object({ from: queryTimeSchema('from'), to: queryTimeSchema('to') });
+
+/** The export's range, checked before any header is sent. */
+function parseExportRange(query: unknown): { from: Date; to: Date } {
+  const { from, to } = exportQuery.parse(query);
+  if (from >= to) throw invalidInput('from', 'from must be before to');
+  if (to.getTime() - from.getTime() > MAX_RANGE_MS)
+    throw invalidInput('from', 'range must be at most 400 days');
+  return { from, to };
+}
 
 /** GET /api/systems/:systemId/readings.csv and POST /api/systems/:systemId/readings/import (text/csv). */
 export function createReadingsCsvRoutes(csv: ReadingsCsvService): Router {
   const router = Router();
   router.get('/:systemId/readings.csv', async (req, res) => {
-    const { from, to } = exportQuery.parse(req.query);
+    const { from, to } = parseExportRange(req.query);
     const chunks = csv.export(req.currentUser!, req.params.systemId, from, to);
     const first = await chunks.next(); // access is checked before any header is sent
     res.set({

@@ -2,19 +2,12 @@ import type { PublicUser } from '@cellwarden/shared';
 import type { AuditService } from '../audit/audit-service';
 import { invalidInput } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
+import { parseQueryTime } from './query-time';
 import type { ReadingsRepository } from './readings-repository';
 
 /** Most points one history series returns, whatever the range. */
 export const POINT_BUDGET = 2000;
 const MAX_RANGE_MS = 400 * 24 * 3600 * 1000;
-
-function parseTime(field: string, value: unknown, fallback: number): Date {
-  if (value === undefined) return new Date(fallback);
-  const time = typeof value === 'string' ? Date.parse(value) : NaN;
-  if (!Number.isFinite(time))
-    throw invalidInput(field, `${field} must be an ISO 8601 time; got ${JSON.stringify(value)}`);
-  return new Date(time);
-}
 
 /** History of one system's readings, within the point budget. */
 export function createReadingsService(deps: {
@@ -26,8 +19,8 @@ export function createReadingsService(deps: {
   return {
     async history(user: PublicUser, systemId: string, query: { from?: unknown; to?: unknown }) {
       const system = await deps.systems.getFor(user, systemId);
-      const to = parseTime('to', query.to, deps.now());
-      const from = parseTime('from', query.from, to.getTime() - 3600 * 1000);
+      const to = parseQueryTime('to', query.to, deps.now());
+      const from = parseQueryTime('from', query.from, to.getTime() - 3600 * 1000);
       if (from >= to) throw invalidInput('from', 'from must be before to');
       if (to.getTime() - from.getTime() > MAX_RANGE_MS)
         throw invalidInput('from', 'range must be at most 400 days');

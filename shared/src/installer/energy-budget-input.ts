@@ -51,7 +51,15 @@ export interface EnergyBudgetInput {
 const positive = (max: number, unit: string) => ({ min: 0, max, exclusiveMin: true, unit });
 const nonNegative = (max: number, unit: string) => ({ min: 0, max, unit });
 
+// A JSON body can hold null (or a number) where an entry belongs; refuse it by name before reading fields.
+function requireEntry(value: unknown, at: string): void {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new InstallerInputError('installer-input-not-allowed', at, `${at} must be an object`);
+  }
+}
+
 function validateLoad(load: BudgetLoad, at: string): void {
+  requireEntry(load, at);
   if (typeof load.name !== 'string' || load.name.trim() === '') {
     throw new InstallerInputError(
       'installer-input-not-allowed',
@@ -76,6 +84,7 @@ function validateLoad(load: BudgetLoad, at: string): void {
 }
 
 function validateSource(source: BudgetSource, at: string): void {
+  requireEntry(source, at);
   requireOneOf(`${at}.kind`, source.kind, ['solar', 'dc-dc', 'shore']);
   if (source.kind === 'solar') {
     requireNumberInRange(`${at}.watts`, source.watts, nonNegative(20000, 'W'));
@@ -95,6 +104,7 @@ function validateSource(source: BudgetSource, at: string): void {
 }
 
 function validateSystem(system: BudgetSystem): void {
+  requireEntry(system, 'system');
   requireOneOf('system.nominalVoltage', system.nominalVoltage, SYSTEM_VOLTAGES);
   requireNumberInRange('system.inverterEfficiency', system.inverterEfficiency, { min: 0.5, max: 1 });
   requireNumberInRange('system.inverterRatedW', system.inverterRatedW, nonNegative(20000, 'W'));
