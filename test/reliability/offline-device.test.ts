@@ -29,13 +29,15 @@ afterAll(async () => {
 
 it('computes the reference energy of a hand-worked example', () => {
   // Hand-worked (Q = I·t, E = V·I·t, general reference): the first reading has no reading before it, so it
-  // stands for the capped 300 s: 10 A·300 s = 0.8333 Ah; 36 A for the next 10 s adds 0.1 Ah; ×12.5 V for Wh.
-  const [first, second] = expectedBuckets(
+  // counts nothing; 36 A for the next 10 s is 0.1 Ah, ×12.5 V = 1.25 Wh.
+  const [first, second, third] = expectedBuckets(
     [
       { measuredAt: 0, voltage: 12.5, current: 10 },
       { measuredAt: 10_000, voltage: 12.5, current: 36 },
-      // 20 min later: the gap is capped at 300 s, so −7.2 A adds 7.2·300/3600 = 0.6 Ah out (and 7.2 Wh at 12 V).
+      // 20 min later: a silence longer than 300 s, so this reading counts nothing …
       { measuredAt: 1_210_000, voltage: 12, current: -7.2 },
+      // … and the next, 60 s on, counts −7.2 A·60 s = 0.12 Ah out, ×12 V = 1.44 Wh.
+      { measuredAt: 1_270_000, voltage: 12, current: -7.2 },
     ],
     MINUTE,
   );
@@ -43,10 +45,11 @@ it('computes the reference energy of a hand-worked example', () => {
     bucketStart: 0,
     readingCount: 2,
   });
-  expect(first.ahIn).toBeCloseTo(3000 / 3600 + 0.1, 12);
-  expect(first.whIn).toBeCloseTo((3000 / 3600 + 0.1) * 12.5, 12);
-  expect(second.ahOut).toBeCloseTo(0.6, 12);
-  expect(second.whOut).toBeCloseTo(7.2, 12);
+  expect(first.ahIn).toBeCloseTo(0.1, 12);
+  expect(first.whIn).toBeCloseTo(1.25, 12);
+  expect([second.ahOut, second.whOut]).toEqual([0, 0]);
+  expect(third.ahOut).toBeCloseTo(0.12, 12);
+  expect(third.whOut).toBeCloseTo(1.44, 12);
 });
 
 it('stores a device’s hours of buffered readings in order, and its rollups equal the raw readings', async () => {
@@ -119,14 +122,14 @@ const reading = (measuredAt: number, current: number): BatteryReading => ({
 });
 
 // A late reading also shortens the gap of the next stored reading, whose minute may be another one: that
-// minute must be recomputed too (server/src/telemetry/rollups-sql.ts).
+// minute's energy must be corrected too (server/src/telemetry/rollups-sql.ts).
 it('recomputes the rollup of a later minute when a late reading shortens its gap', async () => {
   const [{ last }] = await node.database.query<{ last: number }>(
     'SELECT (extract(epoch FROM max(measured_at)) * 1000)::float8 AS last FROM readings WHERE system_id = :id',
     { replacements: { id: cabinSystemId }, type: QueryTypes.SELECT },
   );
   const t = Math.ceil((last + 30 * MINUTE) / MINUTE) * MINUTE;
-  // Minute 10 arrives first (its gap to the stored readings is capped); minutes 6–7 arrive late, 150 s before it.
+  // Minute 10 arrives first (a silence before it, so it counts nothing); minutes 6–7 arrive late, 150 s before it.
   const later = [0, 1, 2, 3, 4, 5].map((k) => reading(t + 600_000 + k * 20_000, 20));
   const late = [0, 1, 2, 3, 4, 5].map((k) => reading(t + 400_000 + k * 10_000, -5));
   const client = await connectAsync(node.mqttUrl, {

@@ -23,7 +23,8 @@ export const GAP_CAP_SECONDS = 300;
 /**
  * The reference the rollups must equal, computed independently of the SQL: per bucket the number of
  * readings and Coulomb counting (Ah = Σ I·Δt), each reading's current held over the gap since the reading
- * before it, Δt capped at 300 s; the first reading has none before it (an endless gap), so it stands for 300 s.
+ * before it when that gap is at most 300 s; a longer gap is a silence and counts nothing, and the first reading
+ * has no reading before it, so it counts nothing either.
  */
 export function expectedBuckets(readings: readonly RawReading[], bucketMs: number): BucketEnergy[] {
   const sorted = [...readings].sort((a, b) => a.measuredAt - b.measuredAt);
@@ -40,7 +41,7 @@ export function expectedBuckets(readings: readonly RawReading[], bucketMs: numbe
     };
     b.readingCount++;
     const gapSeconds = i === 0 ? Infinity : (r.measuredAt - sorted[i - 1].measuredAt) / 1000;
-    const hours = Math.min(gapSeconds, GAP_CAP_SECONDS) / 3600;
+    const hours = gapSeconds <= GAP_CAP_SECONDS ? gapSeconds / 3600 : 0;
     b.ahIn += Math.max(r.current, 0) * hours;
     b.ahOut += Math.max(-r.current, 0) * hours;
     b.whIn += Math.max(r.current, 0) * r.voltage * hours;

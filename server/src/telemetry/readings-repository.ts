@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { BatteryReading, HistoryPoint } from '@cellwarden/shared';
-import { RECOMPUTE_HOURS, RECOMPUTE_MINUTES } from './rollups-sql';
+import { INSERT_READINGS_WITH_ROLLUPS, LOCK_SYSTEMS } from './rollups-sql';
 
 /** A reading bound for storage, with the system and device it came from. */
 export interface ReadingRow {
@@ -8,8 +8,6 @@ export interface ReadingRow {
   deviceId: string;
   reading: BatteryReading;
 }
-
-const COLUMNS = 10;
 
 /** Data access for readings; history, export and energy reads go to `reader` (a replica) when given. */
 export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize = sequelize) {
@@ -28,41 +26,33 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
 
   return {
     /**
-     * Stores a batch in one multi-row INSERT (a reading already stored, same system and time, is skipped) and
-     * brings the minute and hour rollups up to date, all in one transaction. Returns the rows newly stored.
+     * Stores a batch in one INSERT (a reading already stored, same system, time and device, is skipped) and
+     * updates the minute and hour rollups from the rows that were new, all in one transaction. Returns the
+     * rows newly stored.
      */
     async insertBatch(rows: readonly ReadingRow[]): Promise<ReadingRow[]> {
       if (rows.length === 0) return [];
       await ensurePartitions(rows);
-      const bind: unknown[] = [];
-      const tuples = rows.map(({ systemId, deviceId, reading }, i) => {
-        bind.push(
-          systemId,
-          new Date(reading.measuredAt),
-          deviceId,
-          reading.voltage,
-          reading.current,
-          reading.temperature,
-          reading.stateOfCharge ?? null,
-          reading.power ?? null,
-          reading.sourceCurrents ? JSON.stringify(reading.sourceCurrents) : null,
-          new Date(),
-        );
-        const base = i * COLUMNS;
-        return `(${Array.from({ length: COLUMNS }, (_, c) => `$${base + c + 1}`).join(', ')})`;
-      });
+      const receivedAt = new Date();
+      const column = <T>(pick: (row: ReadingRow) => T) => rows.map(pick);
+      const bind = [
+        column((r) => r.systemId),
+        column((r) => new Date(r.reading.measuredAt)),
+        column((r) => r.deviceId),
+        column((r) => r.reading.voltage),
+        column((r) => r.reading.current),
+        column((r) => r.reading.temperature),
+        column((r) => r.reading.stateOfCharge ?? null),
+        column((r) => r.reading.power ?? null),
+        column((r) => (r.reading.sourceCurrents ? JSON.stringify(r.reading.sourceCurrents) : null)),
+        column(() => receivedAt),
+      ];
       return sequelize.transaction(async (transaction) => {
+        await sequelize.query(LOCK_SYSTEMS, { bind: [bind[0]], type: QueryTypes.SELECT, transaction });
         const inserted = await sequelize.query<{ systemId: string; measuredAt: Date; deviceId: string }>(
-          `INSERT INTO readings (system_id, measured_at, device_id, voltage, current, temperature,
-             state_of_charge, power, source_currents, received_at)
-           VALUES ${tuples.join(', ')} ON CONFLICT (system_id, measured_at, device_id) DO NOTHING
-           RETURNING system_id AS "systemId", measured_at AS "measuredAt", device_id AS "deviceId"`,
+          INSERT_READINGS_WITH_ROLLUPS,
           { bind, type: QueryTypes.SELECT, transaction },
         );
-        if (inserted.length === 0) return [];
-        const touched = [inserted.map((r) => r.systemId), inserted.map((r) => r.measuredAt)];
-        await sequelize.query(RECOMPUTE_MINUTES, { bind: touched, transaction });
-        await sequelize.query(RECOMPUTE_HOURS, { bind: touched, transaction });
         const stored = new Set(inserted.map((r) => `${r.systemId}/${r.measuredAt.getTime()}/${r.deviceId}`));
         return rows.filter((r) => stored.delete(`${r.systemId}/${r.reading.measuredAt}/${r.deviceId}`));
       });

@@ -1,32 +1,76 @@
-// Rollups are recomputed from the stored readings for every minute a batch touched, then every hour from its
-// minutes, inside the batch's transaction. Recomputing (rather than adding to running totals) makes them exact
-// for late, duplicated and out-of-order readings, e.g. a device's buffered readings after hours offline.
+// Rollups are updated incrementally from the rows a batch's INSERT … ON CONFLICT DO NOTHING reports as new, in
+// the batch's transaction: counts and sums add, minima and maxima combine, the last values go by measured time.
+// A redelivered reading is not new, so it adds nothing; a late or out-of-order reading is placed between its
+// stored neighbours: it takes its own gap from the reading before it and shortens the gap of the reading after
+// it, whose energy is corrected by the difference (in that reading's own minute and hour). Each new reading is
+// found by index lookups of its neighbours, so the cost does not grow with the history already stored.
 
-// Energy between two readings is counted only across gaps up to this long; a longer gap is a silence, not a load.
+// Energy between two readings is counted only across gaps up to this long; a longer gap is a silence, not a
+// load, and a reading with no reading before it (the first ever, or the first after a silence) carries none.
 export const MAX_INTEGRATION_GAP_SECONDS = 300;
 
-// The stored readings' times, and for each the next reading after it: a late reading shortens that one's gap,
-// so its bucket changes too even when it lies in another minute or hour.
-const AFFECTED = `inserted AS (
-  SELECT * FROM unnest($1::uuid[], $2::timestamptz[]) AS t(system_id, measured_at)
-), affected AS (
-  SELECT system_id, measured_at FROM inserted
-  UNION
-  SELECT i.system_id, n.measured_at FROM inserted i
-  CROSS JOIN LATERAL (
-    SELECT r.measured_at FROM readings r
-    WHERE r.system_id = i.system_id AND r.measured_at > i.measured_at
-      AND r.measured_at <= i.measured_at + interval '${MAX_INTEGRATION_GAP_SECONDS} seconds'
-    ORDER BY r.measured_at LIMIT 1
-  ) n
-)`;
+const GAP = `interval '${MAX_INTEGRATION_GAP_SECONDS} seconds'`;
+
+/** Hours a reading's current is held over, from the time of the reading before it (0 past the cap or none). */
+const heldHours = (at: string, previousAt: string) =>
+  `coalesce(CASE WHEN ${at} - ${previousAt} <= ${GAP}
+    THEN extract(epoch FROM ${at} - ${previousAt}) / 3600.0 END, 0)`;
 
 const METRICS = ['voltage', 'current', 'temperature'] as const;
 
-const metricAggregates = METRICS.map(
-  (m) => `min(${m}) AS ${m}_min, max(${m}) AS ${m}_max, sum(${m}) AS ${m}_sum,
-    (array_agg(${m} ORDER BY measured_at DESC))[1] AS ${m}_last`,
-).join(',\n');
+// Readings are ordered by (measured time, device): two monitors on one bank may measure in the same instant.
+const NEW_ROWS = `incoming AS (
+  SELECT * FROM unnest($1::uuid[], $2::timestamptz[], $3::text[], $4::float8[], $5::float8[], $6::float8[],
+    $7::float8[], $8::float8[], $9::text[], $10::timestamptz[])
+    AS t(system_id, measured_at, device_id, voltage, current, temperature, state_of_charge, power,
+      source_currents, received_at)
+), stored AS (
+  INSERT INTO readings (system_id, measured_at, device_id, voltage, current, temperature, state_of_charge,
+    power, source_currents, received_at)
+  SELECT system_id, measured_at, device_id, voltage, current, temperature, state_of_charge, power,
+    source_currents::jsonb, received_at
+  FROM incoming
+  ON CONFLICT (system_id, measured_at, device_id) DO NOTHING
+  RETURNING system_id, measured_at, device_id, voltage, current, temperature, state_of_charge
+), placed AS (
+  SELECT s.*,
+    lag(measured_at) OVER w AS new_before_at,
+    lead(measured_at) OVER w AS new_after_at, lead(device_id) OVER w AS new_after_device
+  FROM stored s
+  WINDOW w AS (PARTITION BY system_id ORDER BY measured_at, device_id)
+), neighbours AS (
+  -- The statement's snapshot does not hold its own inserts, so these lookups see only the readings stored before.
+  SELECT p.*, greatest(p.new_before_at, before.measured_at) AS before_at, before.measured_at AS stored_before_at
+  FROM placed p
+  LEFT JOIN LATERAL (
+    SELECT r.measured_at FROM readings r
+    WHERE r.system_id = p.system_id AND (r.measured_at, r.device_id) < (p.measured_at, p.device_id)
+      AND r.measured_at >= p.measured_at - ${GAP}
+    ORDER BY r.measured_at DESC, r.device_id DESC LIMIT 1
+  ) before ON true
+), corrected AS (
+  -- The stored reading right after each new one (unless another new one comes first) now has a shorter gap.
+  SELECT n.system_id, a.measured_at, a.device_id, a.voltage, a.current,
+    ${heldHours('a.measured_at', 'n.measured_at')} - ${heldHours('a.measured_at', 'n.stored_before_at')} AS hours
+  FROM neighbours n
+  CROSS JOIN LATERAL (
+    SELECT r.measured_at, r.device_id, r.voltage, r.current FROM readings r
+    WHERE r.system_id = n.system_id AND (r.measured_at, r.device_id) > (n.measured_at, n.device_id)
+      AND r.measured_at <= n.measured_at + ${GAP}
+    ORDER BY r.measured_at, r.device_id LIMIT 1
+  ) a
+  WHERE n.new_after_at IS NULL OR (a.measured_at, a.device_id) < (n.new_after_at, n.new_after_device)
+), contributions AS (
+  SELECT system_id, measured_at, device_id, 1 AS new_reading, voltage, current, temperature, state_of_charge,
+    ${heldHours('measured_at', 'before_at')} AS hours, voltage AS energy_voltage, current AS energy_current
+  FROM neighbours
+  UNION ALL
+  SELECT system_id, measured_at, device_id, 0, NULL, NULL, NULL, NULL, hours, voltage, current
+  FROM corrected
+)`;
+
+const lastBy = (column: string, filter: string) =>
+  `(array_agg(${column} ORDER BY measured_at DESC, device_id DESC) FILTER (WHERE ${filter}))[1]`;
 
 const ROLLUP_COLUMNS = [
   'system_id',
@@ -38,6 +82,7 @@ const ROLLUP_COLUMNS = [
   'soc_sum',
   'soc_count',
   'soc_last',
+  'soc_last_at',
   'last_measured_at',
   'ah_in',
   'ah_out',
@@ -45,49 +90,84 @@ const ROLLUP_COLUMNS = [
   'wh_out',
 ];
 
-const overwrite = ROLLUP_COLUMNS.slice(2)
-  .map((c) => `${c} = excluded.${c}`)
-  .join(', ');
+/** The change to each bucket of `unit` ('minute' or 'hour'), from the batch's contributions. */
+const bucketChanges = (unit: 'minute' | 'hour') => `
+  SELECT system_id, date_trunc('${unit}', measured_at) AS bucket_start, sum(new_reading)::int AS reading_count,
+    ${METRICS.map(
+      (m) => `min(${m}) AS ${m}_min, max(${m}) AS ${m}_max, coalesce(sum(${m}), 0) AS ${m}_sum,
+    ${lastBy(m, 'new_reading = 1')} AS ${m}_last`,
+    ).join(',\n    ')},
+    min(state_of_charge) AS soc_min, max(state_of_charge) AS soc_max, sum(state_of_charge) AS soc_sum,
+    count(state_of_charge)::int AS soc_count, ${lastBy('state_of_charge', 'state_of_charge IS NOT NULL')} AS soc_last,
+    max(measured_at) FILTER (WHERE state_of_charge IS NOT NULL) AS soc_last_at,
+    max(measured_at) FILTER (WHERE new_reading = 1) AS last_measured_at,
+    coalesce(sum(greatest(energy_current, 0) * hours), 0) AS ah_in,
+    coalesce(sum(greatest(-energy_current, 0) * hours), 0) AS ah_out,
+    coalesce(sum(greatest(energy_current, 0) * energy_voltage * hours), 0) AS wh_in,
+    coalesce(sum(greatest(-energy_current, 0) * energy_voltage * hours), 0) AS wh_out
+  FROM contributions GROUP BY 1, 2`;
 
-/** Recomputes rollups_1m for the (system, minute) pairs of the readings bound as $1 uuid[] and $2 timestamptz[]. */
-export const RECOMPUTE_MINUTES = `
-WITH ${AFFECTED}, touched AS (
-  SELECT DISTINCT system_id, date_trunc('minute', measured_at) AS bucket FROM affected
-), source AS (
-  SELECT t.system_id, t.bucket, r.measured_at, r.voltage, r.current, r.temperature, r.state_of_charge,
-    least(extract(epoch FROM r.measured_at - lag(r.measured_at) OVER w), ${MAX_INTEGRATION_GAP_SECONDS}) / 3600.0 AS hours
-  FROM touched t
-  JOIN readings r ON r.system_id = t.system_id
-    AND r.measured_at >= t.bucket - interval '${MAX_INTEGRATION_GAP_SECONDS} seconds'
-    AND r.measured_at < t.bucket + interval '1 minute'
-  WINDOW w AS (PARTITION BY t.system_id, t.bucket ORDER BY r.measured_at)
-)
-INSERT INTO rollups_1m (${ROLLUP_COLUMNS.join(', ')})
-SELECT system_id, bucket, count(*),
-  ${metricAggregates},
-  min(state_of_charge), max(state_of_charge), sum(state_of_charge), count(state_of_charge),
-  (array_agg(state_of_charge ORDER BY measured_at DESC) FILTER (WHERE state_of_charge IS NOT NULL))[1],
-  max(measured_at),
-  coalesce(sum(greatest(current, 0) * hours), 0), coalesce(sum(greatest(-current, 0) * hours), 0),
-  coalesce(sum(greatest(current, 0) * voltage * hours), 0), coalesce(sum(greatest(-current, 0) * voltage * hours), 0)
-FROM source WHERE measured_at >= bucket
-GROUP BY system_id, bucket
-ON CONFLICT (system_id, bucket_start) DO UPDATE SET ${overwrite}`;
+const newer = (table: string) => `excluded.last_measured_at > ${table}.last_measured_at`;
+const newerSoc = (table: string) =>
+  `excluded.soc_last_at IS NOT NULL AND (${table}.soc_last_at IS NULL OR excluded.soc_last_at > ${table}.soc_last_at)`;
 
-const lastOf = (column: string) => `(array_agg(${column} ORDER BY bucket_start DESC))[1]`;
+/** How a stored bucket absorbs a change: sums add, extremes combine, the last values go by measured time. */
+const combine = (table: string) =>
+  [
+    `reading_count = ${table}.reading_count + excluded.reading_count`,
+    ...METRICS.flatMap((m) => [
+      `${m}_min = least(${table}.${m}_min, excluded.${m}_min)`,
+      `${m}_max = greatest(${table}.${m}_max, excluded.${m}_max)`,
+      `${m}_sum = ${table}.${m}_sum + excluded.${m}_sum`,
+      `${m}_last = CASE WHEN ${newer(table)} THEN excluded.${m}_last ELSE ${table}.${m}_last END`,
+    ]),
+    `soc_min = least(${table}.soc_min, excluded.soc_min)`,
+    `soc_max = greatest(${table}.soc_max, excluded.soc_max)`,
+    `soc_sum = CASE WHEN excluded.soc_count = 0 THEN ${table}.soc_sum
+      ELSE coalesce(${table}.soc_sum, 0) + excluded.soc_sum END`,
+    `soc_count = ${table}.soc_count + excluded.soc_count`,
+    `soc_last = CASE WHEN ${newerSoc(table)} THEN excluded.soc_last ELSE ${table}.soc_last END`,
+    `soc_last_at = greatest(${table}.soc_last_at, excluded.soc_last_at)`,
+    `last_measured_at = greatest(${table}.last_measured_at, excluded.last_measured_at)`,
+    ...['ah_in', 'ah_out', 'wh_in', 'wh_out'].map((c) => `${c} = ${table}.${c} + excluded.${c}`),
+  ].join(',\n    ');
 
-/** Recomputes rollups_1h from rollups_1m for the hours of the readings bound as $1 uuid[] and $2 timestamptz[]. */
-export const RECOMPUTE_HOURS = `
-WITH ${AFFECTED}, touched AS (
-  SELECT DISTINCT system_id, date_trunc('hour', measured_at) AS bucket FROM affected
-)
-INSERT INTO rollups_1h (${ROLLUP_COLUMNS.join(', ')})
-SELECT m.system_id, t.bucket, sum(reading_count),
-  ${METRICS.map((c) => `min(${c}_min), max(${c}_max), sum(${c}_sum), ${lastOf(`${c}_last`)}`).join(',\n  ')},
-  min(soc_min), max(soc_max), sum(soc_sum), sum(soc_count),
-  (array_agg(soc_last ORDER BY bucket_start DESC) FILTER (WHERE soc_last IS NOT NULL))[1],
-  max(last_measured_at), sum(ah_in), sum(ah_out), sum(wh_in), sum(wh_out)
-FROM touched t
-JOIN rollups_1m m ON m.system_id = t.system_id AND m.bucket_start >= t.bucket AND m.bucket_start < t.bucket + interval '1 hour'
-GROUP BY m.system_id, t.bucket
-ON CONFLICT (system_id, bucket_start) DO UPDATE SET ${overwrite}`;
+// Buckets with new readings are upserted; a bucket whose only change is a corrected gap already exists (its
+// reading is stored) and only has its energy adjusted.
+const applyTo = (table: 'rollups_1m' | 'rollups_1h', changes: string) => `
+${changes}_new AS (
+  INSERT INTO ${table} (${ROLLUP_COLUMNS.join(', ')})
+  SELECT ${ROLLUP_COLUMNS.join(', ')} FROM ${changes} WHERE reading_count > 0
+  ON CONFLICT (system_id, bucket_start) DO UPDATE SET
+    ${combine(table)}
+  RETURNING 1
+), ${changes}_gaps AS (
+  UPDATE ${table} t SET ah_in = t.ah_in + c.ah_in, ah_out = t.ah_out + c.ah_out,
+    wh_in = t.wh_in + c.wh_in, wh_out = t.wh_out + c.wh_out
+  FROM ${changes} c
+  WHERE c.reading_count = 0 AND t.system_id = c.system_id AND t.bucket_start = c.bucket_start
+  RETURNING 1
+)`;
+
+/**
+ * Stores a batch bound as ten parallel arrays (system, measured time, device, voltage, current, temperature,
+ * state of charge, power, source currents as JSON text, received time) and updates both rollups from the
+ * rows that were new; returns the keys of those rows.
+ */
+export const INSERT_READINGS_WITH_ROLLUPS = `
+WITH ${NEW_ROWS},
+minute_changes AS (${bucketChanges('minute')}),
+hour_changes AS (${bucketChanges('hour')}),
+${applyTo('rollups_1m', 'minute_changes')},
+${applyTo('rollups_1h', 'hour_changes')}
+SELECT system_id AS "systemId", measured_at AS "measuredAt", device_id AS "deviceId" FROM stored`;
+
+/**
+ * Serialises writers of the same systems (bound as $1 uuid[]) until the transaction ends, so each batch's
+ * neighbour lookups see every reading committed before it, whichever node or lane wrote it. Taken in one
+ * order (by key) so two batches cannot deadlock.
+ */
+export const LOCK_SYSTEMS = `
+SELECT pg_advisory_xact_lock(key) FROM (
+  SELECT DISTINCT hashtextextended(system_id::text, 19) AS key FROM unnest($1::uuid[]) AS t(system_id) ORDER BY 1
+) keys`;
