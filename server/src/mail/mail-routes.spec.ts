@@ -5,51 +5,73 @@ import { createErrorHandler } from '../errors/error-handler';
 import { createMemoryLogger } from '../logger';
 import type { CapturedMail } from './captured-mail';
 import { createMailOutboxRoutes } from './mail-routes';
-import { requireAdmin } from './require-admin';
 
-const held: CapturedMail = {
-  id: 'm1',
-  to: ['ada@example.test'],
+const mail = (id: string, to: string[], subject: string): CapturedMail => ({
+  id,
+  to,
   from: 'alerts@cellwarden.test',
-  subject: 'Low charge',
-  text: 'Charge is at 18 %.',
+  subject,
+  text: `${subject} text`,
   receivedAt: 1,
-  attachments: [{ filename: 'record.pdf', contentType: 'application/pdf', size: 1200 }],
+  attachments: [],
   headerNames: ['from', 'to', 'subject'],
-};
+});
+const held = [
+  mail('m1', ['ada@example.test'], 'Low charge'),
+  mail('m2', ['kim@example.test'], 'Reset your password'),
+  mail('m3', ['kim@example.test', 'ADA@Example.test'], 'Record for two'),
+];
 
-function appAs(user: PublicUser | undefined) {
+function appAs(user: PublicUser | undefined, catcher = { messages: () => held }) {
   const app = express();
   const signIn: RequestHandler = (req, _res, next) => {
     req.currentUser = user;
     next();
   };
-  app.use('/api/dev/mail', signIn, requireAdmin, createMailOutboxRoutes({ messages: () => [held] }));
+  app.use('/api/dev/mail', signIn, createMailOutboxRoutes(catcher));
   app.use(createErrorHandler(createMemoryLogger()));
   return app;
 }
 
-const person = (roles: PublicUser['roles']): PublicUser => ({
+const person = (email: string, roles: PublicUser['roles']): PublicUser => ({
   id: 'u1',
-  email: 'ada@example.test',
-  displayName: 'Ada',
+  email,
+  displayName: 'Someone',
   roles,
-  companyId: null,
+  companyId: 'c1',
 });
 
-describe('the development outbox', () => {
-  it('lists the captured messages to an admin', async () => {
-    const response = await request(appAs(person(['admin'])))
+describe('the local copy of your mail', () => {
+  it("lists only the messages addressed to the signed-in person, and only their own address in 'to'", async () => {
+    const response = await request(appAs(person('Ada@example.test', ['owner'])))
       .get('/api/dev/mail')
       .expect(200);
-    expect(response.body).toEqual({ messages: [held] });
+    expect(response.body).toEqual({
+      catcher: true,
+      address: 'ada@example.test',
+      messages: [held[0], { ...held[2], to: ['ADA@Example.test'] }],
+    });
   });
 
-  it('is forbidden to anyone without the admin role', async () => {
-    const response = await request(appAs(person(['owner', 'installer'])))
+  it("shows a company admin their own mail, never another person's reset mail", async () => {
+    const response = await request(appAs(person('boss@example.test', ['admin'])))
       .get('/api/dev/mail')
-      .expect(403);
-    expect(response.body.error.code).toBe('forbidden');
+      .expect(200);
+    expect(response.body.messages).toEqual([]);
+  });
+
+  it('says when the server runs without its catcher', async () => {
+    const app = express();
+    app.use(
+      '/api/dev/mail',
+      (req, _res, next) => {
+        req.currentUser = person('ada@example.test', ['owner']);
+        next();
+      },
+      createMailOutboxRoutes(undefined),
+    );
+    const response = await request(app).get('/api/dev/mail').expect(200);
+    expect(response.body).toEqual({ catcher: false, address: 'ada@example.test', messages: [] });
   });
 
   it('asks for sign-in when no one is signed in', async () => {

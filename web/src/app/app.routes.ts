@@ -70,8 +70,8 @@ export const routes: Routes = [
   },
   {
     path: 'mail-outbox',
-    title: 'Mail outbox · Cellwarden',
-    canActivate: [roleGuard(['admin'])],
+    title: 'Your mail, local copy · Cellwarden',
+    canActivate: [authGuard],
     loadComponent: () => import('./mail-outbox/mail-outbox').then((m) => m.MailOutbox),
   },
   {

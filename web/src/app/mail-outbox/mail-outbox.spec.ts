@@ -20,19 +20,21 @@ describe('MailOutbox', () => {
     return { fixture, http, loader: TestbedHarnessEnvironment.loader(fixture) };
   }
 
-  it('lists captured mail newest first, with the text inside', async () => {
-    const { loader } = await render({
+  it('lists your captured mail newest first, with the text inside', async () => {
+    const { fixture, loader } = await render({
+      catcher: true,
+      address: 'sam@example.com',
       messages: [
         {
           id: 'm1',
-          to: 'sam@example.com',
+          to: ['sam@example.com'],
           subject: 'You are invited',
           text: 'Open /invitation/abc',
           receivedAt: 1000,
         },
         {
           id: 'm2',
-          to: 'kim@example.com',
+          to: ['sam@example.com'],
           subject: 'Reset your password',
           text: 'Open /password-reset/xyz',
           receivedAt: 2000,
@@ -43,20 +45,32 @@ describe('MailOutbox', () => {
     expect(await panels[0].getTitle()).toBe('Reset your password');
     await panels[1].expand();
     expect(await panels[1].getTextContent()).toContain('Open /invitation/abc');
+    expect(fixture.nativeElement.textContent).toContain('Messages to sam@example.com');
   });
 
-  it('explains that the catcher is off when the server answers 404', async () => {
-    const { fixture } = await render({ error: { code: 'not_found', message: 'x' } }, 404);
+  it('says it is the local catcher’s copy of your mail, not a mailbox', async () => {
+    const { fixture } = await render({ catcher: true, address: 'sam@example.com', messages: [] });
+    expect(fixture.nativeElement.textContent).toContain('messages addressed to you');
+    expect(fixture.nativeElement.textContent).toContain('not a mailbox');
+  });
+
+  it('explains that the catcher is off when the server says so', async () => {
+    const { fixture } = await render({ catcher: false, address: 'sam@example.com', messages: [] });
     expect(fixture.nativeElement.querySelector('[role="status"]').textContent).toContain(
       'mail catcher is off',
     );
   });
 
+  it('reports a failed load', async () => {
+    const { fixture } = await render({ error: { code: 'internal_error', message: 'x' } }, 500);
+    expect(fixture.nativeElement.querySelector('[role="alert"]')).not.toBeNull();
+  });
+
   it('reloads on demand', async () => {
-    const { fixture, http, loader } = await render({ messages: [] });
-    expect(fixture.nativeElement.textContent).toContain('No mail captured yet.');
+    const { fixture, http, loader } = await render({ catcher: true, address: 'a@b.c', messages: [] });
+    expect(fixture.nativeElement.textContent).toContain('No mail to you captured yet.');
     await (await loader.getHarness(MatButtonHarness.with({ text: /Reload/ }))).click();
     await fixture.whenStable();
-    http.expectOne('/api/dev/mail').flush({ messages: [] });
+    http.expectOne('/api/dev/mail').flush({ catcher: true, address: 'a@b.c', messages: [] });
   });
 });

@@ -1,5 +1,4 @@
 import { DatePipe } from '@angular/common';
-import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -13,9 +12,9 @@ type OutboxState =
   | { status: 'loading' }
   | { status: 'off' }
   | { status: 'error' }
-  | { status: 'loaded'; messages: CapturedMail[] };
+  | { status: 'loaded'; address: string; messages: CapturedMail[] };
 
-/** Admin page listing e-mail the local SMTP catcher kept (invitations, resets, records) during development. */
+/** The local SMTP catcher's copy of the signed-in person's own mail (invitations, resets, alerts, records). */
 @Component({
   selector: 'cw-mail-outbox',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,22 +29,24 @@ export class MailOutbox {
   protected readonly state = toSignal(
     toObservable(this.reloads).pipe(
       switchMap(() =>
-        this.api.messages().pipe(
-          map((messages): OutboxState => ({ status: 'loaded', messages })),
-          // 404 means the server runs without its catcher, which is the normal production case.
-          catchError((error: unknown) =>
-            of<OutboxState>(
-              error instanceof HttpErrorResponse && error.status === 404
-                ? { status: 'off' }
-                : { status: 'error' },
-            ),
+        this.api.ownMail().pipe(
+          // Without the catcher (the normal production case) mail goes out for real and nothing is kept.
+          map((own): OutboxState =>
+            own.catcher
+              ? { status: 'loaded', address: own.address, messages: own.messages }
+              : { status: 'off' },
           ),
+          catchError(() => of<OutboxState>({ status: 'error' })),
           startWith<OutboxState>({ status: 'loading' }),
         ),
       ),
     ),
     { initialValue: { status: 'loading' } as OutboxState },
   );
+  protected readonly address = computed(() => {
+    const state = this.state();
+    return state.status === 'loaded' ? state.address : '';
+  });
   protected readonly messages = computed(() => {
     const state = this.state();
     return state.status === 'loaded' ? [...state.messages].sort((a, b) => b.receivedAt - a.receivedAt) : [];

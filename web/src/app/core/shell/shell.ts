@@ -1,6 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
@@ -8,7 +8,8 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { map } from 'rxjs';
+import { catchError, map, of, switchMap } from 'rxjs';
+import { MailOutboxApi } from '../../mail-outbox/mail-outbox-api';
 import { Auth } from '../auth';
 import { Theme } from '../theme';
 
@@ -34,9 +35,24 @@ export class Shell {
   protected readonly auth = inject(Auth);
   protected readonly theme = inject(Theme);
   private readonly breakpoints = inject(BreakpointObserver);
+  private readonly mailOutbox = inject(MailOutboxApi);
 
   protected readonly isPhone = toSignal(
     this.breakpoints.observe('(max-width: 599.98px)').pipe(map((state) => state.matches)),
+    { initialValue: false },
+  );
+  /** Whether the server keeps a local copy of mail (its catcher runs): only then is "Your mail" listed. */
+  protected readonly mailCatcherOn = toSignal(
+    toObservable(this.auth.isSignedIn).pipe(
+      switchMap((signedIn) =>
+        signedIn
+          ? this.mailOutbox.ownMail().pipe(
+              map((own) => own.catcher),
+              catchError(() => of(false)),
+            )
+          : of(false),
+      ),
+    ),
     { initialValue: false },
   );
   protected readonly themeLabel = computed(() =>
