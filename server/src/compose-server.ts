@@ -194,7 +194,8 @@ export async function startServer(
     repository: readingsRepository,
     logger,
     batchSize: config.INGEST_BATCH_SIZE,
-    flushMs: config.INGEST_FLUSH_MS,
+    // INGEST_FLUSH_MS is now the first retry delay: batches no longer wait for a window (see batch-writer.ts).
+    retryMs: config.INGEST_FLUSH_MS,
     queueLimit: config.INGEST_QUEUE_LIMIT,
     onStored: (rows) => {
       const lastSeen = new Map<string, number>();
@@ -202,15 +203,20 @@ export async function startServer(
       for (const { systemId, reading } of rows) checks.onReading(systemId, reading);
       for (const { deviceId, reading } of rows)
         lastSeen.set(deviceId, Math.max(lastSeen.get(deviceId) ?? 0, reading.measuredAt));
-      // Readings go live with what the analytics made of them; the order within each system is kept.
-      void analytics.process(rows).then((derived) =>
-        rows.forEach(({ systemId, reading }, i) =>
+      // Each reading goes live as soon as the analytics have run on it, not after the whole batch's (an alert
+      // stored for one reading must not hold up the rest); the order within each system is kept.
+      for (const row of rows)
+        void analytics.process([row]).then(([derived]) =>
           hub.publish({
-            systemId,
-            message: { type: 'reading', systemId, reading: { ...reading, receivedAt }, derived: derived[i] },
+            systemId: row.systemId,
+            message: {
+              type: 'reading',
+              systemId: row.systemId,
+              reading: { ...row.reading, receivedAt },
+              derived,
+            },
           }),
-        ),
-      );
+        );
       devicesRepository
         .markSeen(lastSeen)
         .catch((error) => logger.warn('last seen not updated', { error: String(error) }));
