@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
 import demo from '../../db/seeders/demo-sign-ins.json';
+import { blackPng } from '../support/crafted-images';
 import { signInAs } from '../support/http-session';
 import { startTestServer } from '../support/test-server';
 
@@ -192,7 +193,7 @@ it('answers garbage uploads with a 4xx and an error code, or stores them under a
     .post(`/api/systems/${vanId}/uploads`)
     .set(auth())
     .field('kind', 'photo')
-    .attach('file', PNG, { filename: '../../../etc/cron.d/x.png', contentType: 'image/png' });
+    .attach('file', blackPng(8, 8), { filename: '../../../etc/cron.d/x.png', contentType: 'image/png' });
   statuses[traversal.status] = (statuses[traversal.status] ?? 0) + 1;
   expect([traversal.status, /[/\\]/.test(traversal.body.upload?.fileName ?? '/')]).toEqual([201, false]);
   [noFile, notMultipart, tooBig].forEach((r) => (statuses[r.status] = (statuses[r.status] ?? 0) + 1));

@@ -3,7 +3,7 @@ import type { AccountsRepository } from '../accounts/accounts-repository';
 import type { AuditService } from '../audit/audit-service';
 import { commissioningRecordMail } from '../mail/mail-templates';
 import type { Mailer } from '../mail/mailer';
-import { renderCommissioningRecord } from '../records/commissioning-record';
+import { createRecordRenderer, type RecordRenderer } from '../records/isolated-record-renderer';
 import { toRecordCheck } from '../records/commissioning-record-input';
 import type { SettingsRepository } from '../settings/settings-repository';
 import type { SystemsService } from '../systems/systems-service';
@@ -20,7 +20,10 @@ export function createCommissioningRecordService(deps: {
   mailer: Mailer;
   audit: AuditService;
   now: () => number;
+  /** Defaults to a worker-thread renderer with the stated heap and time bounds. */
+  renderer?: RecordRenderer;
 }) {
+  const renderer = deps.renderer ?? createRecordRenderer();
   async function render(user: PublicUser, systemId: string) {
     const system = await deps.systems.getFor(user, systemId, 'export');
     const settings = (await deps.settings.find(system.id))!;
@@ -29,7 +32,7 @@ export function createCommissioningRecordService(deps: {
       .filter((check) => check !== null)
       .reverse();
     const company = user.companyId ? await deps.accounts.findCompany(user.companyId) : undefined;
-    const pdf = await renderCommissioningRecord({
+    const pdf = await renderer.render({
       system: {
         name: settings.name,
         kind: settings.kind,

@@ -2,6 +2,8 @@ import type { PublicUser, UploadListing } from '@cellwarden/shared';
 import type { AuditService } from '../audit/audit-service';
 import { invalidInput, notFound } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
+import type { CommissioningRecordPhoto } from '../records/commissioning-record-input';
+import { decodePhoto, photoForRecord, type DecodedPhoto } from '../uploads/photo-decoder';
 import { acceptUpload } from '../uploads/upload-policy';
 import type { UploadStorage } from '../uploads/upload-storage';
 import type { UploadsRepository } from './uploads-repository';
@@ -17,6 +19,12 @@ export function createUploadsService(deps: {
   systems: SystemsService;
   audit: AuditService;
 }) {
+  async function readStored(systemId: string, storedName: string): Promise<Buffer> {
+    const chunks: Buffer[] = [];
+    for await (const chunk of await deps.storage.open(systemId, storedName)) chunks.push(chunk as Buffer);
+    return Buffer.concat(chunks);
+  }
+
   return {
     async add(
       user: PublicUser,
@@ -33,6 +41,11 @@ export function createUploadsService(deps: {
         declaredType: file.mimetype,
         content: file.buffer,
       });
+      // A photo is stored only as the re-encoded copy of an image that decoded whole within the limits.
+      if (accepted.kind === 'photo')
+        accepted.content = (
+          await decodePhoto(accepted.content, accepted.contentType as DecodedPhoto['contentType'])
+        ).content;
       const stored = await deps.storage.save(system.id, accepted);
       const record = await deps.repository.insert({
         systemId: system.id,
@@ -66,17 +79,22 @@ export function createUploadsService(deps: {
       return { record, stream: await deps.storage.open(system.id, record.storedName) };
     },
 
-    /** Photo bytes for the commissioning record. */
-    async photos(systemId: string): Promise<{ caption: string; data: Buffer }[]> {
+    /**
+     * The system's newest 12 photos as the commissioning record embeds them (see `photoForRecord`), one at a
+     * time so no more than one stored file is held at once; null for a photo that is missing or does not
+     * decode (files stored before photos were checked may be anything).
+     */
+    async photos(systemId: string): Promise<CommissioningRecordPhoto[]> {
       const photos = (await deps.repository.list(systemId)).filter((u) => u.kind === 'photo').slice(0, 12);
-      const read = async (storedName: string) => {
-        const chunks: Buffer[] = [];
-        for await (const chunk of await deps.storage.open(systemId, storedName)) chunks.push(chunk as Buffer);
-        return Buffer.concat(chunks);
-      };
-      return Promise.all(
-        photos.map(async (p) => ({ caption: p.caption || p.fileName, data: await read(p.storedName) })),
-      );
+      const prepared: CommissioningRecordPhoto[] = [];
+      for (const photo of photos) {
+        const raw = await readStored(systemId, photo.storedName).catch(() => null);
+        prepared.push({
+          caption: photo.caption || photo.fileName,
+          data: raw && (await photoForRecord(raw)),
+        });
+      }
+      return prepared;
     },
   };
 }

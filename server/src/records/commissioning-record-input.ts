@@ -17,10 +17,10 @@ export interface CommissioningRecordCheck {
   reasons: string[];
 }
 
-/** A photo of the installation: JPEG or PNG bytes and a caption. */
+/** A photo of the installation: JPEG or PNG bytes (null when the stored file could not be read) and a caption. */
 export interface CommissioningRecordPhoto {
   caption: string;
-  data: Buffer;
+  data: Buffer | null;
 }
 
 /** Everything a commissioning record shows; the caller has already checked who may see it. */

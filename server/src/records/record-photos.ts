@@ -16,7 +16,7 @@ export function writePhotos(doc: PDFKit.PDFDocument, photos: CommissioningRecord
 
 function writePhoto(doc: PDFKit.PDFDocument, photo: CommissioningRecordPhoto, number: number): void {
   const caption = `Photo ${number}: ${stripControlCharacters(photo.caption) || 'no caption'}`;
-  const image = openImage(doc, photo.data);
+  const image = photo.data && openImage(doc, photo.data);
   if (!image) return void doc.text(`${caption} (the image could not be read and is left out)`);
   const scale = Math.min(contentWidth(doc) / image.width, MAX_PHOTO_HEIGHT / image.height);
   const width = image.width * scale;
@@ -31,7 +31,8 @@ function writePhoto(doc: PDFKit.PDFDocument, photo: CommissioningRecordPhoto, nu
 
 function openImage(doc: PDFKit.PDFDocument, data: Buffer): { width: number; height: number } | null {
   try {
-    // openImage only reads the header and image data; a bad buffer throws before anything is drawn.
+    // Photos arrive as JPEG re-encoded by photoForRecord, whose bytes pdfkit copies without decoding; its
+    // own PNG decoding would run in a zlib callback, where a throw escapes every handler.
     const image = (doc as unknown as ImageOpener).openImage(data);
     return image.width > 0 && image.height > 0 ? image : null;
   } catch {
