@@ -1,7 +1,8 @@
-import express, { Router } from 'express';
+import { Router, type ErrorRequestHandler } from 'express';
 import { z } from 'zod';
-import { invalidInput } from '../errors/app-error';
+import { AppError, invalidInput } from '../errors/app-error';
 import { queryTimeSchema } from './query-time';
+import { IMPORT_LIMIT_BYTES } from './readings-csv-reader';
 import type { ReadingsCsvService } from './readings-csv-service';
 
 const MAX_RANGE_MS = 400 * 24 * 3600_000;
@@ -32,18 +33,35 @@ export function createReadingsCsvRoutes(csv: ReadingsCsvService): Router {
     for await (const chunk of chunks) res.write(chunk);
     res.end();
   });
-  router.post(
-    '/:systemId/readings/import',
-    express.text({ type: ['text/csv', 'text/plain'], limit: '16mb' }),
-    async (req, res) => {
-      if (typeof req.body !== 'string') {
-        res.status(415).json({
-          error: { code: 'unsupported_media_type', message: 'Send the CSV as text/csv', field: 'file' },
-        });
-        return;
-      }
-      res.json({ import: await csv.import(req.currentUser!, String(req.params.systemId), req.body) });
-    },
-  );
+  // The body is read as a stream by the service (after the access check), never buffered whole here.
+  router.post('/:systemId/readings/import', async (req, res) => {
+    if (!req.is(['text/csv', 'text/plain']))
+      throw new AppError('unsupported_media_type', 415, 'Send the CSV as text/csv', 'file');
+    if (Number(req.headers['content-length']) > IMPORT_LIMIT_BYTES)
+      throw new AppError('file_too_large', 413, 'the file must be at most 16 MB', 'file');
+    res.json({ import: await csv.import(req.currentUser!, String(req.params.systemId), req) });
+  });
+  router.use('/:systemId/readings/import', discardUnreadBody);
   return router;
 }
+
+const DISCARD_WAIT_MS = 10_000;
+
+// A refusal can come before the body was read (wrong type, too large, no access) or halfway through it.
+// Like body-parser, read off the rest so the client, still sending, gets the answer instead of a reset;
+// a client that keeps sending past the wait has the connection closed after the answer.
+const discardUnreadBody: ErrorRequestHandler = (error, req, res, next) => {
+  if (req.complete || req.destroyed) return next(error);
+  let answered = false;
+  const answer = () => {
+    if (answered) return;
+    answered = true;
+    clearTimeout(timer);
+    if (!req.complete) res.set('Connection', 'close');
+    next(error);
+  };
+  const timer = setTimeout(answer, DISCARD_WAIT_MS);
+  req.once('end', answer);
+  req.once('close', answer);
+  req.resume();
+};

@@ -1,21 +1,11 @@
-import { parse } from 'csv-parse/sync';
+import type { Readable } from 'node:stream';
 import { stringify } from 'csv-stringify/sync';
-import {
-  checkReadingsCsvHeader,
-  csvRecordToReading,
-  READINGS_CSV_HEADER,
-  ReadingsCsvError,
-  readingToCsvRecord,
-  type BatteryReading,
-  type PublicUser,
-} from '@cellwarden/shared';
+import { READINGS_CSV_HEADER, readingToCsvRecord, type PublicUser } from '@cellwarden/shared';
 import type { AuditService } from '../audit/audit-service';
-import { invalidInput } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
+import { readReadingsCsv } from './readings-csv-reader';
 import type { ReadingsRepository } from './readings-repository';
 
-/** Most rows one import may hold (a year at one reading a minute is 525,600). */
-export const MAX_IMPORT_ROWS = 200_000;
 const EXPORT_CHUNK_MS = 24 * 3600_000;
 const IMPORT_DEVICE = 'csv-import';
 
@@ -44,32 +34,10 @@ export function createReadingsCsvService(deps: {
       }
     },
 
-    async import(user: PublicUser, systemId: string, text: string) {
+    /** Stores the readings of a CSV stream only if every row is valid (checked before the first insert). */
+    async import(user: PublicUser, systemId: string, csv: Readable) {
       const system = await deps.systems.getFor(user, systemId, 'configure');
-      let records: string[][];
-      try {
-        records = parse(text, {
-          relax_column_count: true,
-          skip_empty_lines: true,
-          bom: true,
-          max_record_size: 4096,
-        });
-      } catch (error) {
-        const line = (error as { lines?: number }).lines ?? 0;
-        throw invalidInput('file', `line ${line}: not valid CSV (${(error as Error).message.slice(0, 120)})`);
-      }
-      if (records.length === 0) throw invalidInput('file', 'the file is empty');
-      if (records.length - 1 > MAX_IMPORT_ROWS)
-        throw invalidInput('file', `at most ${MAX_IMPORT_ROWS} rows per import; got ${records.length - 1}`);
-      const now = deps.now();
-      let readings: BatteryReading[];
-      try {
-        checkReadingsCsvHeader(records[0]);
-        readings = records.slice(1).map((record, i) => csvRecordToReading(record, i + 2, now));
-      } catch (error) {
-        if (error instanceof ReadingsCsvError) throw invalidInput(error.field ?? 'file', error.message);
-        throw error;
-      }
+      const readings = await readReadingsCsv(csv, deps.now());
       let stored = 0;
       for (let i = 0; i < readings.length; i += 1000) {
         const batch = readings
