@@ -8,6 +8,7 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router } from '@angular/router';
 import type { ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
+import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api } from '../core/api';
@@ -35,6 +36,7 @@ import { toHistorySeries } from './to-history-series';
 @Component({
   selector: 'cw-history',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [provideChartSetup()],
   imports: [
     MatButtonModule,
     MatButtonToggleModule,

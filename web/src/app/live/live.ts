@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
+import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { Api } from '../core/api';
 import type { ApiProblem } from '../core/api-error';
@@ -30,6 +31,7 @@ import { toChartSeries } from './to-chart-series';
 @Component({
   selector: 'cw-live',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [provideChartSetup()],
   imports: [
     MatCardModule,
     MatIconModule,

@@ -11,6 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { InstallerInputError, SYSTEM_VOLTAGES, SystemVoltage, energyBudget } from '@cellwarden/shared';
 import type { ChartConfiguration } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
+import { provideChartSetup } from '../../core/chart-setup';
 import { map, startWith } from 'rxjs';
 import { Findings } from '../findings/findings';
 import { budgetChartSummary, toBudgetChart } from './to-budget-chart';
@@ -25,6 +26,7 @@ const num = (value: number, min: number, max: number) => [
 @Component({
   selector: 'cw-energy-budget',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [provideChartSetup()],
   imports: [
     ReactiveFormsModule,
     MatFormFieldModule,
