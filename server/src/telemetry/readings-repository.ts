@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { BatteryReading, HistoryPoint } from '@cellwarden/shared';
-import { INSERT_READINGS_WITH_ROLLUPS, LOCK_SYSTEMS } from './rollups-sql';
+import { INSERT_READINGS_WITH_ROLLUPS, LOCK_SYSTEMS, MAX_INTEGRATION_GAP_SECONDS } from './rollups-sql';
 
 /** A reading bound for storage, with the system and device it came from. */
 export interface ReadingRow {
@@ -47,11 +47,14 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
         column((r) => (r.reading.sourceCurrents ? JSON.stringify(r.reading.sourceCurrents) : null)),
         column(() => receivedAt),
       ];
+      const times = rows.map((r) => r.reading.measuredAt);
+      const gapMs = MAX_INTEGRATION_GAP_SECONDS * 1000;
+      const lookups = [new Date(Math.min(...times) - gapMs), new Date(Math.max(...times) + gapMs)];
       return sequelize.transaction(async (transaction) => {
         await sequelize.query(LOCK_SYSTEMS, { bind: [bind[0]], type: QueryTypes.SELECT, transaction });
         const inserted = await sequelize.query<{ systemId: string; measuredAt: Date; deviceId: string }>(
           INSERT_READINGS_WITH_ROLLUPS,
-          { bind, type: QueryTypes.SELECT, transaction },
+          { bind: [...bind, ...lookups], type: QueryTypes.SELECT, transaction },
         );
         const stored = new Set(inserted.map((r) => `${r.systemId}/${r.measuredAt.getTime()}/${r.deviceId}`));
         return rows.filter((r) => stored.delete(`${r.systemId}/${r.reading.measuredAt}/${r.deviceId}`));

@@ -45,7 +45,7 @@ const NEW_ROWS = `incoming AS (
   LEFT JOIN LATERAL (
     SELECT r.measured_at FROM readings r
     WHERE r.system_id = p.system_id AND (r.measured_at, r.device_id) < (p.measured_at, p.device_id)
-      AND r.measured_at >= p.measured_at - ${GAP}
+      AND r.measured_at >= p.measured_at - ${GAP} AND r.measured_at BETWEEN $11 AND $12
     ORDER BY r.measured_at DESC, r.device_id DESC LIMIT 1
   ) before ON true
 ), corrected AS (
@@ -56,7 +56,7 @@ const NEW_ROWS = `incoming AS (
   CROSS JOIN LATERAL (
     SELECT r.measured_at, r.device_id, r.voltage, r.current FROM readings r
     WHERE r.system_id = n.system_id AND (r.measured_at, r.device_id) > (n.measured_at, n.device_id)
-      AND r.measured_at <= n.measured_at + ${GAP}
+      AND r.measured_at <= n.measured_at + ${GAP} AND r.measured_at BETWEEN $11 AND $12
     ORDER BY r.measured_at, r.device_id LIMIT 1
   ) a
   WHERE n.new_after_at IS NULL OR (a.measured_at, a.device_id) < (n.new_after_at, n.new_after_device)
@@ -152,7 +152,8 @@ ${changes}_new AS (
 /**
  * Stores a batch bound as ten parallel arrays (system, measured time, device, voltage, current, temperature,
  * state of charge, power, source currents as JSON text, received time) and updates both rollups from the
- * rows that were new; returns the keys of those rows.
+ * rows that were new; returns the keys of those rows. $11 and $12 bound the neighbour lookups (the batch's
+ * earliest time less the gap cap, its latest plus it), so the planner reads only the months they can lie in.
  */
 export const INSERT_READINGS_WITH_ROLLUPS = `
 WITH ${NEW_ROWS},
