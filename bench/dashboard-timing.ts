@@ -1,0 +1,113 @@
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { connectAsync } from 'mqtt';
+import { encodeReadingPack, readingsTopic } from '@cellwarden/shared';
+import { launchChromium } from '../test/browser/launch-chromium';
+import type { Monitor } from './product-node';
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+/** A page with nothing but one WebSocket: the floor for "first live value on screen". */
+const barePage = (
+  streamUrl: string,
+  token: string,
+  systemId: string,
+) => `<!doctype html><html lang="en"><title>bare</title>
+<p id="value"></p><script>
+const socket = new WebSocket('${streamUrl}', ['cellwarden.v1', 'bearer.${token}']);
+socket.onopen = () => socket.send(JSON.stringify({ type: 'subscribe', systemIds: ['${systemId}'] }));
+socket.onmessage = (event) => {
+  const message = JSON.parse(event.data);
+  if (message.type === 'reading') document.getElementById('value').textContent = message.reading.voltage + ' V';
+};
+</script></html>`;
+
+/**
+ * Bytes a first visit downloads (cold cache) and the time from navigation to the first live value on screen,
+ * for the dashboard's live view and for a bare page, while the monitor reports ten times a second.
+ */
+export async function timeDashboard(options: {
+  baseUrl: string;
+  token: string;
+  mqttUrl: string;
+  monitor: Monitor;
+  runs: number;
+}) {
+  const { baseUrl, monitor } = options;
+  const device = await connectAsync(options.mqttUrl, {
+    username: monitor.deviceId,
+    password: monitor.secret,
+    clientId: `cw-bench-dashboard-${monitor.deviceId}`,
+  });
+  let k = 0;
+  const start = Date.now() - 120_000;
+  const ticker = setInterval(() => {
+    const reading = { measuredAt: start + k++ * 100, voltage: 13.1, current: 2, temperature: 9 };
+    void device
+      .publishAsync(
+        readingsTopic(monitor.deviceId),
+        JSON.stringify(encodeReadingPack(monitor.deviceId, [reading])),
+        { qos: 1 },
+      )
+      .catch(() => undefined);
+  }, 100);
+  // The bare page comes from a server of its own on loopback (a page the browser made up would count as
+  // public, and Chromium's local network access checks would refuse its socket to 127.0.0.1).
+  const streamUrl = `${baseUrl.replace('http', 'ws')}/api/stream`;
+  const bareServer = createServer((_req, res) =>
+    res
+      .writeHead(200, { 'content-type': 'text/html' })
+      .end(barePage(streamUrl, options.token, monitor.systemId)),
+  );
+  await new Promise<void>((resolve) => bareServer.listen(0, '127.0.0.1', resolve));
+  const bareUrl = `http://127.0.0.1:${(bareServer.address() as AddressInfo).port}/`;
+  const chromium = await launchChromium();
+  try {
+    const visit = async (path: string, selector: string, bare: boolean) => {
+      const context = await chromium.browser.newContext();
+      const page = await context.newPage();
+      if (!bare) {
+        const signIn = await page.request.post(`${baseUrl}/api/auth/sign-in`, {
+          data: { email: 'ilse.varga@owner.example', password: 'cellwarden-demo' },
+        });
+        if (!signIn.ok()) throw new Error(`dashboard sign-in answered ${signIn.status()}`);
+      }
+      const cdp = await context.newCDPSession(page);
+      await cdp.send('Network.enable');
+      let bytes = 0;
+      let scriptBytes = 0;
+      const scripts = new Set<string>();
+      cdp.on('Network.responseReceived', (e) => {
+        if (e.type === 'Script') scripts.add(e.requestId);
+      });
+      cdp.on('Network.loadingFinished', (e) => {
+        bytes += e.encodedDataLength;
+        if (scripts.has(e.requestId)) scriptBytes += e.encodedDataLength;
+      });
+      const started = performance.now();
+      await page.goto(bare ? path : `${baseUrl}${path}`);
+      await page.locator(selector).first().waitFor({ state: 'visible', timeout: 30_000 });
+      const firstValueMs = performance.now() - started;
+      await page.waitForLoadState('networkidle').catch(() => undefined);
+      await context.close();
+      return { firstValueMs, bytes, scriptBytes };
+    };
+    const dashboard = [];
+    const bare = [];
+    for (let i = 0; i < options.runs; i++) {
+      dashboard.push(await visit(`/systems/${monitor.systemId}`, '.tiles .tile dd', false));
+      bare.push(await visit(bareUrl, '#value:not(:empty)', true));
+    }
+    return {
+      dashboardMs: median(dashboard.map((d) => d.firstValueMs)),
+      bareMs: median(bare.map((d) => d.firstValueMs)),
+      dashboardBytes: median(dashboard.map((d) => d.bytes)),
+      dashboardScriptBytes: median(dashboard.map((d) => d.scriptBytes)),
+    };
+  } finally {
+    clearInterval(ticker);
+    await chromium.close();
+    bareServer.close();
+    await device.endAsync();
+  }
+}
