@@ -3,7 +3,6 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconButton } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatListItem, MatListItemIcon, MatListItemTitle, MatNavList } from '@angular/material/list';
 import { MatMenu, MatMenuItem, MatMenuTrigger } from '@angular/material/menu';
 import { MatSidenav, MatSidenavContainer, MatSidenavContent } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
@@ -19,15 +18,11 @@ import { Theme } from '../theme';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     MatToolbarModule,
-    // Single components rather than whole modules: MatListModule alone would bring @angular/forms (for the
-    // selection list) into the first load.
+    // Single components rather than whole modules, and plain links for the navigation: Material's list module
+    // is shared with lazy screens whole, selection list and @angular/forms included, so it would load first.
     MatSidenav,
     MatSidenavContainer,
     MatSidenavContent,
-    MatNavList,
-    MatListItem,
-    MatListItemIcon,
-    MatListItemTitle,
     MatIconButton,
     MatIconModule,
     MatMenu,
