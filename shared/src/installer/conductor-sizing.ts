@@ -1,7 +1,8 @@
 // The two rules that size a DC conductor: the voltage it may lose, and the current it may carry.
 import { conductorAmpacity, InsulationRatingC } from './conductor-ampacity';
+import { ConductorConstruction, conductorResistancePerMetre } from './conductor-resistance';
 import { CONTINUOUS_LOAD_FACTOR } from './fuse-ratings';
-import { AWG_SIZES, AwgSize, circuitVoltageDrop } from './wire-gauge';
+import { AWG_SIZES, AwgSize } from './wire-gauge';
 
 /** Voltage lost along a circuit, in volts and as a percentage of the nominal voltage. */
 export interface VoltageDrop {
@@ -10,15 +11,20 @@ export interface VoltageDrop {
   /** Percent of the nominal system voltage. */
   percent: number;
 }
-/** Expected voltage drop of a gauge carrying a current over a one-way run. */
+
+/**
+ * Expected voltage drop of a gauge carrying a current over a one-way run (copper out and back), at a
+ * conductor temperature (default 20 °C) and construction (default solid, the ASTM B258 / IEC 60028 figure).
+ */
 export function voltageDropFor(
   gauge: AwgSize,
   currentA: number,
   oneWayLengthM: number,
   systemVoltage: number,
   temperatureC = 20,
+  construction: ConductorConstruction = 'solid',
 ): VoltageDrop {
-  const volts = circuitVoltageDrop(gauge, currentA, oneWayLengthM, temperatureC);
+  const volts = currentA * conductorResistancePerMetre(gauge, construction, temperatureC) * 2 * oneWayLengthM;
   return { volts, percent: (volts / systemVoltage) * 100 };
 }
 
@@ -29,17 +35,25 @@ export function minimumGaugeByDrop(
   systemVoltage: number,
   allowedDropPercent: number,
   temperatureC = 20,
+  construction: ConductorConstruction = 'solid',
 ): AwgSize | undefined {
   return AWG_SIZES.find(
     (g) =>
-      voltageDropFor(g, currentA, oneWayLengthM, systemVoltage, temperatureC).percent <= allowedDropPercent,
+      voltageDropFor(g, currentA, oneWayLengthM, systemVoltage, temperatureC, construction).percent <=
+      allowedDropPercent,
   );
 }
 
-/** Thinnest gauge rated for 125 % of the continuous current (NEC 210.19(A)(1)), or undefined. */
+/**
+ * Thinnest gauge whose ampacity, times `derating` (default 1), is at least 125 % of the continuous current
+ * (NEC 210.19(A)(1)), or undefined.
+ */
 export function minimumGaugeByAmpacity(
   currentA: number,
   insulationRatingC: InsulationRatingC,
+  derating = 1,
 ): AwgSize | undefined {
-  return AWG_SIZES.find((g) => conductorAmpacity(g, insulationRatingC) >= currentA * CONTINUOUS_LOAD_FACTOR);
+  return AWG_SIZES.find(
+    (g) => conductorAmpacity(g, insulationRatingC) * derating >= currentA * CONTINUOUS_LOAD_FACTOR,
+  );
 }

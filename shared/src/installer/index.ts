@@ -21,9 +21,43 @@ export type { InsulationRatingC } from './conductor-ampacity';
 export { INSULATION_RATINGS_C, AMPACITY_SOURCE, conductorAmpacity } from './conductor-ampacity';
 export type { VoltageDrop } from './conductor-sizing';
 export { voltageDropFor, minimumGaugeByDrop, minimumGaugeByAmpacity } from './conductor-sizing';
-export type { FuseRange } from './fuse-ratings';
-export { COMMON_DC_FUSE_RATINGS_A, CONTINUOUS_LOAD_FACTOR, fuseRange } from './fuse-ratings';
-export type { WireFuseCheckInput, WireFuseCheckResult } from './wire-fuse-check';
+export type { ConductorConstruction } from './conductor-resistance';
+export {
+  CONDUCTOR_CONSTRUCTIONS,
+  COPPER_TEMPERATURE_COEFFICIENT_75C,
+  conductorResistancePerMetre,
+  necStrandedResistancePerMetreAt75C,
+  fineStrandFactor,
+} from './conductor-resistance';
+export type { DeratingFactor, InstallationConditions } from './conductor-derating';
+export {
+  DEFAULT_INSTALLATION,
+  ENGINE_SPACE_AMBIENT_C,
+  ambientCorrectionFactor,
+  bundleFactor,
+  deratingFactors,
+  deratingMultiplier,
+} from './conductor-derating';
+export type { FuseRange, FuseRangeOptions, ProtectionRules } from './fuse-ratings';
+export {
+  COMMON_DC_FUSE_RATINGS_A,
+  NEC_STANDARD_RATINGS_A,
+  CONTINUOUS_LOAD_FACTOR,
+  PROTECTION_RULES,
+  fuseRange,
+  maximumFuseRating,
+} from './fuse-ratings';
+export {
+  FUSE_PLACEMENT_RULE,
+  SHEATHED_FUSE_DISTANCE_M,
+  UNSHEATHED_FUSE_DISTANCE_M,
+  fusePlacementFinding,
+} from './fuse-placement';
+export type { FaultBank } from './fault-current';
+export { prospectiveFaultCurrentA } from './fault-current';
+export type { ResolvedWireFuseInput, WireFuseCheckInput } from './wire-fuse-input';
+export { WIRE_FUSE_DEFAULTS } from './wire-fuse-input';
+export type { ConductorFigures, WireFuseCheckResult } from './wire-fuse-check';
 export { WIRE_AND_FUSE_CAUTIONS, checkWireAndFuse } from './wire-fuse-check';
 export type { BudgetLoad, BudgetSource, BudgetSystem, EnergyBudgetInput } from './energy-budget-input';
 export type { EnergyBudget } from './energy-budget';
