@@ -1,5 +1,6 @@
 // `npm test`: the same preparation as `npm start`, on a throwaway cluster of its own, then every suite.
 import { execFileSync, spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -108,6 +109,8 @@ function main() {
         CW_TEST_DATABASE_BASE_URL: base,
         CW_TEST_TEMPLATE_DATABASE: TEMPLATE_DATABASE,
         CW_TEST_REDIS_URL: `redis://127.0.0.1:${REDIS_PORT}`,
+        // One random signing secret for every server this run starts, so nodes accept each other's tokens.
+        JWT_SECRET: randomBytes(32).toString('base64url'),
       });
       status = 0;
     } catch (error) {

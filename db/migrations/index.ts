@@ -7,6 +7,7 @@ import { createRollups } from './2026.12.02T07.10.00.create-rollups';
 import { createAlerts } from './2026.12.02T07.20.00.create-alerts';
 import { createInstallerRecords } from './2026.12.02T07.30.00.create-installer-records';
 import { alterReadingsKey } from './2026.12.02T08.00.00.alter-readings-key';
+import { createSignInSessions } from './2026.12.03T09.00.00.create-sign-in-sessions';
 import { alterRollups } from './2026.12.03T12.50.00.alter-rollups';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
@@ -19,5 +20,6 @@ export const migrations: Migration[] = [
   createAlerts,
   createInstallerRecords,
   alterReadingsKey,
+  createSignInSessions,
   alterRollups,
 ];

@@ -2,6 +2,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import bcrypt from 'bcryptjs';
 import { SCENARIO_SUMMARIES } from '../../simulator/src/scenario-catalog';
 import demo from './demo-sign-ins.json';
+import { hashDeviceSecret } from '../../server/src/devices/device-secret';
 
 // An invented scenario: every person, company and place here is fictional.
 
@@ -104,7 +105,7 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
         {
           id: device.id,
           systemId: row.id,
-          secretHash: await bcrypt.hash(device.secret, 10),
+          secretHash: hashDeviceSecret(device.secret),
         },
       );
     }

@@ -8,6 +8,7 @@ import type { GrantsService } from './access/grants-service';
 import type { AccountsRepository } from './accounts/accounts-repository';
 import { createAccountsRoutes } from './accounts/accounts-routes';
 import type { AccountsService } from './accounts/accounts-service';
+import type { CompanyMembersService } from './accounts/company-members-service';
 import { createCompaniesRoutes, createCompanyRoutes } from './accounts/company-routes';
 import type { InvitationsService } from './accounts/invitations-service';
 import type { PasswordResetService } from './accounts/password-reset-service';
@@ -37,7 +38,10 @@ export interface AppDeps {
   accounts: AccountsService;
   invitations: InvitationsService;
   passwordReset: PasswordResetService;
+  companyMembers: CompanyMembersService;
   signInLimits: SignInLimits;
+  /** Express "trust proxy": false, or the proxies whose X-Forwarded-For is believed. */
+  trustProxy: boolean | number | string;
   systems: SystemsService;
   grants: GrantsService;
   devices: DevicesService;
@@ -56,16 +60,23 @@ export interface AppDeps {
 export function createApp(deps: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Off unless configured: otherwise anyone could choose, through X-Forwarded-For, the address their
+  // sign-in attempts are counted against.
+  app.set('trust proxy', deps.trustProxy);
   app.use(helmet({ contentSecurityPolicy: { directives: { 'upgrade-insecure-requests': null } } }));
   // Closed by default: the dashboard is served from the same origin and needs no CORS at all.
   app.use(
     '/api',
     cors({ origin: deps.corsOrigins.length > 0 ? deps.corsOrigins : false, credentials: true }),
   );
+  // API answers carry personal data and short-lived state: no browser or proxy keeps a copy.
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   app.use(express.json({ limit: '256kb' }));
   app.use(cookieParser());
-  const requireUser: RequestHandler = createRequireUser(deps.accountsRepository, deps.jwtSecret);
+  const requireUser: RequestHandler = createRequireUser(deps.accounts, deps.jwtSecret);
 
   app.use('/api/health', createHealthRoutes(deps.sequelize));
   app.use(
@@ -81,7 +92,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(
     '/api/company',
     requireUser,
-    createCompanyRoutes({ accounts: deps.accountsRepository, invitations: deps.invitations }),
+    createCompanyRoutes({ members: deps.companyMembers, invitations: deps.invitations }),
   );
   app.use('/api/companies', requireUser, createCompaniesRoutes(deps.accountsRepository));
   app.use('/api/grants', requireUser, createReceivedGrantsRoutes(deps.grants));

@@ -7,6 +7,7 @@ import { createAccountLinksRepository } from './accounts/account-links-repositor
 import { createAccountMail } from './accounts/account-mail-sender';
 import { createAccountsRepository } from './accounts/accounts-repository';
 import { createAccountsService } from './accounts/accounts-service';
+import { createCompanyMembersService } from './accounts/company-members-service';
 import { createInvitationsService } from './accounts/invitations-service';
 import { createPasswordResetService } from './accounts/password-reset-service';
 import { createSessionsRepository } from './accounts/sessions-repository';
@@ -102,6 +103,7 @@ export async function startServer(
     mail: accountMail,
     now,
     publicUrl: () => publicUrl,
+    logger,
   };
   const invitations = createInvitationsService({ ...linkDeps, sessions: accounts });
   const passwordReset = createPasswordResetService({ ...linkDeps, sessions });
@@ -253,8 +255,11 @@ export async function startServer(
     accounts,
     invitations,
     passwordReset,
+    companyMembers: createCompanyMembersService({ accounts: accountsRepository, links, sessions: accounts }),
+    trustProxy: config.TRUST_PROXY,
     signInLimits: {
       perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
+      perAccountGlobal: config.SIGN_IN_LIMIT_PER_ACCOUNT_GLOBAL,
       perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
       windowSeconds: config.SIGN_IN_LIMIT_WINDOW_SECONDS,
       store: cluster?.signInStore,
@@ -281,7 +286,7 @@ export async function startServer(
   });
   const http = createServer(app);
   http.on('clientError', (_error, socket) => socket.destroy());
-  const stream = attachLiveStream({ server: http, accounts, systems, hub, logger, now });
+  const stream = attachLiveStream({ server: http, accounts, sessions, systems, hub, logger, now });
   // Through the hub, so a revoke on one node ends the streams on every node.
   onAccessRevoked = (systemId) => hub.accessChanged(systemId);
   const stopAccessSignal = hub.onAccessChanged((systemId) => stream.accessChanged(systemId));

@@ -45,9 +45,10 @@ export {
 export * from './analytics/index';
 export * from './installer/index';
 export type * from './api/accounts-contract';
-export { MIN_PASSWORD_LENGTH } from './api/accounts-contract';
+export { MAX_PASSWORD_BYTES, MIN_PASSWORD_LENGTH } from './api/accounts-contract';
 export type * from './api/access-contract';
 export type * from './api/alerts-contract';
 export type * from './api/stream-contract';
+export { MAX_STREAM_SUBSCRIPTIONS, STREAM_CLOSE } from './api/stream-contract';
 export type * from './api/settings-contract';
 export type * from './api/installer-contract';

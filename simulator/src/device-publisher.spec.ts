@@ -49,10 +49,33 @@ describe('publishDevice', () => {
       count: 1,
     });
     expect(options[0]).toMatchObject({
-      clientId: 'cw-sim-cw-bench',
+      clientId: 'cw-bench',
       clean: false,
       username: 'cw-bench',
       password: 's',
     });
+  });
+
+  it('keeps trying with back-off when the first connect fails, as a real monitor does', async () => {
+    const { deps, sent, start } = bench();
+    const lines: string[] = [];
+    let failures = 3;
+    const connect = deps.connect;
+    const begun = start();
+    deps.stdout = (text) => void lines.push(text);
+    deps.connect = async (url, options) => {
+      if (failures-- > 0) throw new Error('connack timeout');
+      return connect(url, options);
+    };
+    await publishDevice(deps, device, SCENARIOS['phantom-drain'], {
+      broker: 'mqtt://x',
+      start: 0,
+      intervalSeconds: 60,
+      count: 2,
+    });
+    expect(sent.length).toBeGreaterThan(0);
+    expect(lines.filter((l) => l.includes('could not connect'))).toHaveLength(3);
+    // 1 s, 2 s and 4 s of back-off on the fake clock before the fourth attempt succeeded.
+    expect(start() - begun).toBe(7000);
   });
 });

@@ -29,24 +29,50 @@ export interface PublishSchedule {
 // Backlog readings go in packs of this many, each reading with its own time: well under the 64 KiB limit.
 const BACKLOG_PACK_READINGS = 20;
 
-/** The one place a device's MQTT client is made: a stable client id and a persistent session (clean: false). */
+// MQTT 3.1.1 §3.2.2.3: identifier rejected, bad user name or password, not authorized.
+const REFUSALS = new Set([2, 4, 5]);
+
+/** Back-off before connect attempt n (0-based) after a failed first connect: 1 s, 2 s, 4 s … capped at 30 s. */
+export function connectRetryDelay(attempt: number): number {
+  return Math.min(1000 * 2 ** attempt, 30_000);
+}
+
+/**
+ * The one place a device's MQTT client is made: its own device id as client id (the broker refuses any
+ * other) and a persistent session (clean: false). Like a real monitor it never gives up: a first connect
+ * that fails (broker busy or restarting, database away) is tried again with back-off, and mqtt.js
+ * reconnects by itself once connected.
+ */
 export async function connectDevice(
   deps: PublisherDeps,
   broker: string,
   device: DevicePlan,
 ): Promise<MqttClient> {
-  const client = await deps.connect(broker, {
+  const options: IClientOptions = {
     username: device.id,
     password: device.secret,
-    clientId: `cw-sim-${device.id}`,
+    clientId: device.id,
     clean: false,
     keepalive: 30,
     // A broker that answers "server unavailable" (its database away) is retried, not given up on.
     reconnectOnConnackError: true,
-  });
-  // mqtt.js reconnects by itself after a network error; say so rather than crash on an unhandled 'error'.
-  client.on('error', (error) => deps.stdout(`${device.id}: connection error: ${error.message}\n`));
-  return client;
+  };
+  const sleep = deps.sleep ?? ((ms: number) => new Promise((resolve) => setTimeout(resolve, ms)));
+  for (let attempt = 0; ; attempt++) {
+    try {
+      const client = await deps.connect(broker, options);
+      client.on('error', (error) => deps.stdout(`${device.id}: connection error: ${error.message}\n`));
+      return client;
+    } catch (error) {
+      // Refused credentials or client id (CONNACK 2, 4, 5) will not mend by waiting: say so and stop.
+      if (REFUSALS.has((error as { code?: number }).code ?? -1)) throw error;
+      const wait = connectRetryDelay(attempt);
+      deps.stdout(
+        `${device.id}: could not connect (${(error as Error).message}); retrying in ${wait / 1000} s\n`,
+      );
+      await sleep(wait);
+    }
+  }
 }
 
 async function publish(client: MqttClient, deviceId: string, readings: readonly BatteryReading[]) {

@@ -61,7 +61,7 @@ it('delivers every reading of an offline window once, oldest first, after the mo
   expect(distinct).toHaveLength(90);
   expect(distinct).toEqual([...distinct].sort((a, b) => a - b));
   expect(distinct[0]).toBe(start);
-  expect(new Set(arrivals.map((a) => a.clientId))).toEqual(new Set([`cw-sim-${device.id}`]));
+  expect(new Set(arrivals.map((a) => a.clientId))).toEqual(new Set([device.id]));
   const text = output.join('');
   expect(text.match(/offline at/g)).toHaveLength(2);
   expect(text).toContain('sending 10 buffered readings');

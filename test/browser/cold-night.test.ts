@@ -29,7 +29,7 @@ beforeAll(async () => {
   device = await connectAsync(node.mqttUrl, {
     username: van.id,
     password: van.secret,
-    clientId: `browser-${Date.now()}`,
+    clientId: `${van.id}/browser-${Date.now()}`,
   });
 }, 60000);
 afterAll(async () => {

@@ -46,7 +46,7 @@ it('flags charging below 0 °C, pushes it live, e-mails the owner, and records i
   const device = await connectAsync(node.mqttUrl, {
     username: van.id,
     password: van.secret,
-    clientId: `alerts-${Date.now()}`,
+    clientId: `${van.id}/alerts-${Date.now()}`,
   });
   const now = Date.now();
   // Two minutes of 15 A into a pack at −6 °C: past the flag's 30 s minimum duration.
@@ -171,7 +171,7 @@ it("records the flags a device's late backlog held, as past alerts on the right 
   const device = await connectAsync(node.mqttUrl, {
     username: van.id,
     password: van.secret,
-    clientId: `late-${Date.now()}`,
+    clientId: `${van.id}/late-${Date.now()}`,
   });
   const publish = (readings: BatteryReading[]) =>
     device.publishAsync(readingsTopic(van.id), JSON.stringify(encodeReadingPack(van.id, readings)), {

@@ -44,7 +44,7 @@ beforeAll(async () => {
   device = await connectAsync(node.mqttUrl, {
     username: van.id,
     password: van.secret,
-    clientId: `installer-${Date.now()}`,
+    clientId: `${van.id}/installer-${Date.now()}`,
   });
 });
 afterAll(async () => {

@@ -18,7 +18,7 @@ const deviceClient = (device: { id: string; secret: string }) =>
   connectAsync(node.mqttUrl, {
     username: device.id,
     password: device.secret,
-    clientId: `test-${device.id}-${Math.random()}`,
+    clientId: `${device.id}/test-${Math.random()}`,
     reconnectPeriod: 0,
   });
 

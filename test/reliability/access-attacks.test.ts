@@ -29,7 +29,7 @@ const connectDevice = (device: { id: string; secret: string }) =>
   connectAsync(node.mqttUrl, {
     username: device.id,
     password: device.secret,
-    clientId: `attack-${device.id}-${Math.random()}`,
+    clientId: `${device.id}/attack-${Math.random()}`,
     reconnectPeriod: 0,
   });
 const packFor = (deviceId: string, at = Date.now() - 5000) =>

@@ -35,7 +35,7 @@ beforeAll(async () => {
   van = await connectAsync(node.mqttUrl, {
     username: vanDevice.id,
     password: vanDevice.secret,
-    clientId: `bad-input-${vanDevice.id}`,
+    clientId: `${vanDevice.id}/bad-input`,
     reconnectPeriod: 0,
   });
 });

@@ -159,7 +159,7 @@ it('stores the readings of two monitors of one system measured at the same time'
     const client = await connectAsync(server.mqttUrl, {
       username: device.id,
       password: device.secret,
-      clientId: `same-time-${device.id}`,
+      clientId: `${device.id}/same-time`,
       reconnectPeriod: 0,
     });
     const pack = encodeReadingPack(device.id, [

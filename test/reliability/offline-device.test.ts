@@ -135,7 +135,7 @@ it('recomputes the rollup of a later minute when a late reading shortens its gap
   const client = await connectAsync(node.mqttUrl, {
     username: cabin.id,
     password: cabin.secret,
-    clientId: `late-${cabin.id}`,
+    clientId: `${cabin.id}/late`,
     reconnectPeriod: 0,
   });
   for (const pack of [later, late])

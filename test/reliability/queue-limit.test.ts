@@ -40,7 +40,7 @@ it('holds at most the queue limit while PostgreSQL is away, and stores every rea
     const client = await ledger.connect(server.mqttUrl, {
       username: van.id,
       password: van.secret,
-      clientId: `queue-${van.id}`,
+      clientId: `${van.id}/queue`,
       clean: false,
       // While PostgreSQL is away a reconnect is refused with CONNACK 3 (server unavailable); mqtt.js gives up
       // after a refused CONNACK unless told otherwise, and a monitor must keep trying.

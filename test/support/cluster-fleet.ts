@@ -60,7 +60,7 @@ export async function uploadBacklog(
   const client = await connectAsync(brokerUrl, {
     username: device.id,
     password: device.secret,
-    clientId: `bench-${device.id}`,
+    clientId: `${device.id}/bench`,
     reconnectPeriod: 0,
   });
   try {

@@ -8,6 +8,7 @@ import { loadConfig } from '../../server/src/config';
 import { connectDatabase } from '../../server/src/database/connect-database';
 import { createMemoryLogger } from '../../server/src/logger';
 import { createTestDatabase } from './test-database';
+import { TEST_JWT_SECRET } from './test-secret';
 
 /** One database for every node of a test cluster, cloned from the template and seeded with the demo. */
 export async function createSharedDatabase(): Promise<{
@@ -33,6 +34,7 @@ export async function startClusterNode(env: Record<string, string>) {
   const logger = createMemoryLogger();
   const uploadDir = mkdtempSync(join(tmpdir(), 'cw-uploads-'));
   const config = loadConfig({
+    JWT_SECRET: TEST_JWT_SECRET,
     PORT: '0',
     MQTT_PORT: '0',
     WEB_DIST: '',

@@ -1,6 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
+import { TEST_JWT_SECRET } from './test-secret';
 
 const projectRoot = join(__dirname, '..', '..');
 
@@ -48,6 +49,7 @@ export function createProcessServer(options: ProcessServerOptions) {
         MQTT_PORT: String(options.mqttPort),
         WEB_DIST: '',
         LOG_LEVEL: 'warn',
+        JWT_SECRET: TEST_JWT_SECRET,
         ...options.env,
       },
     });

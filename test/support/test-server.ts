@@ -7,6 +7,7 @@ import { connectDatabase } from '../../server/src/database/connect-database';
 import { createMemoryLogger } from '../../server/src/logger';
 import { seedDemoScenario } from '../../db/seeders/demo-scenario';
 import { createTestDatabase } from './test-database';
+import { TEST_JWT_SECRET } from './test-secret';
 
 /** A real Cellwarden node on free ports against its own database, with the demo scenario loaded. */
 export async function startTestServer(options: { webDist?: string; env?: Record<string, string> } = {}) {
@@ -16,6 +17,7 @@ export async function startTestServer(options: { webDist?: string; env?: Record<
   const logger = createMemoryLogger();
   const uploadDir = mkdtempSync(join(tmpdir(), 'cw-uploads-'));
   const config = loadConfig({
+    JWT_SECRET: TEST_JWT_SECRET,
     DATABASE_URL: database.url,
     PORT: '0',
     MQTT_PORT: '0',

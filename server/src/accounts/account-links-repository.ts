@@ -51,6 +51,16 @@ export function createAccountLinksRepository(sequelize: Sequelize) {
         },
       ),
 
+    /** Withdraws an open invitation of this company: its link stops working. False when there is none. */
+    async withdrawInvitation(companyId: string, id: string): Promise<boolean> {
+      const rows = await select<{ id: string }>(
+        `UPDATE invitations SET expires_at = now()
+         WHERE id = :id AND company_id = :companyId AND accepted_at IS NULL AND expires_at > now() RETURNING id`,
+        { id, companyId },
+      );
+      return rows.length > 0;
+    },
+
     /** Marks an invitation used, once; a second use (or a race) gets undefined. */
     async claimInvitation(tokenHash: string): Promise<InvitationRecord | undefined> {
       const [row] = await select<{ id: string }>(
@@ -63,10 +73,25 @@ export function createAccountLinksRepository(sequelize: Sequelize) {
       );
     },
 
+    /** Stores a new reset link and voids every older unused one of the same person, in one transaction. */
     async createPasswordReset(reset: { tokenHash: string; userId: string; expiresAt: Date }) {
+      await sequelize.transaction(async (transaction) => {
+        await sequelize.query(
+          `UPDATE password_resets SET used_at = now() WHERE user_id = :userId AND used_at IS NULL`,
+          { replacements: reset, transaction },
+        );
+        await sequelize.query(
+          `INSERT INTO password_resets (token_hash, user_id, expires_at) VALUES (:tokenHash, :userId, :expiresAt)`,
+          { replacements: reset, transaction },
+        );
+      });
+    },
+
+    /** Voids every unused reset link of a person (after a completed reset). */
+    async voidPasswordResets(userId: string): Promise<void> {
       await sequelize.query(
-        `INSERT INTO password_resets (token_hash, user_id, expires_at) VALUES (:tokenHash, :userId, :expiresAt)`,
-        { replacements: reset },
+        `UPDATE password_resets SET used_at = now() WHERE user_id = :userId AND used_at IS NULL`,
+        { replacements: { userId } },
       );
     },
 

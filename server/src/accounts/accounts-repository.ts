@@ -40,6 +40,26 @@ export function createAccountsRepository(sequelize: Sequelize) {
       );
     },
 
+    /** A member of this company, or undefined (someone else's member is not revealed). */
+    findMember: (companyId: string, userId: string) =>
+      one<UserRecord>(`${SELECT_USER} WHERE id = :userId AND company_id = :companyId`, { companyId, userId }),
+
+    async setRoles(userId: string, roles: Role[]): Promise<void> {
+      await sequelize.query(
+        `UPDATE users SET roles = :roles::text[], updated_at = now() WHERE id = :userId`,
+        // An array literal of the fixed role names (checked by the table's CHECK constraint too).
+        { replacements: { userId, roles: `{${roles.join(',')}}` } },
+      );
+    },
+
+    /** Takes a person out of their company; `roles` are what they keep (an owner stays an owner). */
+    async leaveCompany(userId: string, roles: Role[]): Promise<void> {
+      await sequelize.query(
+        `UPDATE users SET company_id = NULL, roles = :roles::text[], updated_at = now() WHERE id = :userId`,
+        { replacements: { userId, roles: `{${roles.join(',')}}` } },
+      );
+    },
+
     listCompanies: () =>
       sequelize.query<CompanyListing>(`SELECT id, name FROM companies ORDER BY name`, {
         type: QueryTypes.SELECT,

@@ -1,5 +1,5 @@
 import { Router, type CookieOptions, type Request, type RequestHandler, type Response } from 'express';
-import { MIN_PASSWORD_LENGTH } from '@cellwarden/shared';
+import { MAX_PASSWORD_BYTES, MIN_PASSWORD_LENGTH } from '@cellwarden/shared';
 import { z } from 'zod';
 import type { AccountsService, IssuedSession } from './accounts-service';
 import { REFRESH_TOKEN_TTL_MS } from './accounts-service';
@@ -19,7 +19,10 @@ const email = z
 const newPassword = z
   .string({ error: 'password is required' })
   .min(MIN_PASSWORD_LENGTH, `password must be at least ${MIN_PASSWORD_LENGTH} characters`)
-  .max(200, 'password must be at most 200 characters');
+  .refine(
+    (p) => Buffer.byteLength(p, 'utf8') <= MAX_PASSWORD_BYTES,
+    `password must be at most ${MAX_PASSWORD_BYTES} bytes (about ${MAX_PASSWORD_BYTES} letters, fewer with accents or symbols)`,
+  );
 const token = z
   .string({ error: 'token is required' })
   .regex(/^[A-Za-z0-9_-]{20,100}$/, 'token is not a valid link token');
@@ -73,9 +76,26 @@ export function createAccountsRoutes(deps: {
   router.get('/me', deps.requireUser, (req, res) => {
     res.json({ user: req.currentUser });
   });
+  router.post('/password', deps.requireUser, async (req, res) => {
+    const body = z
+      .object({
+        currentPassword: z.string({ error: 'currentPassword is required' }).min(1).max(1000),
+        newPassword: newPassword.refine((p) => p !== req.body?.currentPassword, {
+          message: 'newPassword must differ from the current one',
+        }),
+      })
+      .parse(req.body ?? {});
+    await deps.accounts.changePassword(
+      req.currentUser!.id,
+      req.sessionId!,
+      body.currentPassword,
+      body.newPassword,
+    );
+    res.status(204).end();
+  });
   router.post('/password-reset/request', ...deps.signInLimiters, async (req, res) => {
     const body = z.object({ email }).parse(req.body ?? {});
-    await deps.passwordReset.request(body.email);
+    deps.passwordReset.request(body.email);
     res.status(202).json({ message: 'If that address has an account, a reset link is on its way' });
   });
   router.post('/password-reset/complete', async (req, res) => {

@@ -1,9 +1,17 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { forbidden } from '../errors/app-error';
 import type { AccountsRepository } from './accounts-repository';
+import type { CompanyMembersService } from './company-members-service';
 import type { InvitationsService } from './invitations-service';
 
+const roles = z
+  .array(
+    z.enum(['owner', 'installer', 'support', 'admin'], {
+      error: 'roles may hold owner, installer, support, admin',
+    }),
+  )
+  .min(1, 'roles must name at least one role')
+  .max(4);
 const invitationBody = z.object({
   email: z
     .string({ error: 'email is required' })
@@ -11,27 +19,30 @@ const invitationBody = z.object({
     .toLowerCase()
     .email('email must be an e-mail address')
     .max(254),
-  roles: z
-    .array(
-      z.enum(['owner', 'installer', 'support', 'admin'], {
-        error: 'roles may hold owner, installer, support, admin',
-      }),
-    )
-    .min(1, 'roles must name at least one role')
-    .max(4),
+  roles,
 });
 
 /** A company admin's view of their people: members and invitations. */
 export function createCompanyRoutes(deps: {
-  accounts: AccountsRepository;
+  members: CompanyMembersService;
   invitations: InvitationsService;
 }): Router {
   const router = Router();
   router.get('/members', async (req, res) => {
-    const user = req.currentUser!;
-    if (!user.roles.includes('admin') || !user.companyId)
-      throw forbidden('Only a company admin can list members');
-    res.json({ members: await deps.accounts.listMembers(user.companyId) });
+    res.json({ members: await deps.members.list(req.currentUser!) });
+  });
+  router.put('/members/:userId/roles', async (req, res) => {
+    const body = z.object({ roles }).parse(req.body ?? {});
+    await deps.members.setRoles(req.currentUser!, req.params.userId, body.roles);
+    res.status(204).end();
+  });
+  router.delete('/members/:userId', async (req, res) => {
+    await deps.members.remove(req.currentUser!, req.params.userId);
+    res.status(204).end();
+  });
+  router.delete('/invitations/:invitationId', async (req, res) => {
+    await deps.members.withdrawInvitation(req.currentUser!, req.params.invitationId);
+    res.status(204).end();
   });
   router.get('/invitations', async (req, res) => {
     res.json({ invitations: await deps.invitations.list(req.currentUser!) });

@@ -1,5 +1,6 @@
 import type { Invitation, InvitationPreview, PublicUser, Role } from '@cellwarden/shared';
-import { AppError, forbidden, invalidInput } from '../errors/app-error';
+import { AppError, forbidden } from '../errors/app-error';
+import type { Logger } from '../logger';
 import type { AccountLinksRepository, InvitationRecord } from './account-links-repository';
 import type { AccountMail } from './account-mail';
 import type { AccountsRepository } from './accounts-repository';
@@ -36,13 +37,24 @@ export function createInvitationsService(deps: {
   mail: AccountMail;
   publicUrl: () => string;
   now: () => number;
+  logger: Logger;
 }) {
+  // Whether the address already signs in decides which mail goes out, never what the inviter is told.
+  async function sendInvitation(email: string, companyId: string, link: string, expiresAt: Date) {
+    const company = await deps.accounts.findCompany(companyId);
+    if (await deps.accounts.findByEmail(email))
+      await deps.mail.sendInvitationToExistingAccount(email, company?.name ?? null);
+    else await deps.mail.sendInvitation(email, link, company?.name ?? null, expiresAt);
+  }
+
   return {
+    /**
+     * Records the invitation and answers at once; the mail goes out afterwards. The answer is the same
+     * whether or not the address has an account, so inviting cannot be used to probe addresses.
+     */
     async invite(admin: PublicUser, email: string, roles: Role[]): Promise<Invitation> {
       if (!admin.roles.includes('admin') || !admin.companyId)
         throw forbidden('Only a company admin can invite');
-      if (await deps.accounts.findByEmail(email))
-        throw invalidInput('email', `${email} already has an account`);
       const { token, hash } = newOneTimeToken();
       const expiresAt = new Date(deps.now() + INVITATION_TTL_MS);
       const id = await deps.links.createInvitation({
@@ -53,12 +65,8 @@ export function createInvitationsService(deps: {
         invitedBy: admin.id,
         expiresAt,
       });
-      const company = await deps.accounts.findCompany(admin.companyId);
-      await deps.mail.sendInvitation(
-        email,
-        `${deps.publicUrl()}/invitation/${token}`,
-        company?.name ?? null,
-        expiresAt,
+      sendInvitation(email, admin.companyId, `${deps.publicUrl()}/invitation/${token}`, expiresAt).catch(
+        (error) => deps.logger.warn('invitation mail not sent', { error: String(error) }),
       );
       return { id, email, roles, expiresAt: expiresAt.getTime(), acceptedAt: null };
     },
@@ -83,6 +91,13 @@ export function createInvitationsService(deps: {
     async accept(token: string, displayName: string, password: string): Promise<IssuedSession> {
       const record = await deps.links.claimInvitation(hashToken(token));
       if (!record) throw invitationGone();
+      if (await deps.accounts.findByEmail(record.email))
+        throw new AppError(
+          'account_exists',
+          409,
+          'This address already has a Cellwarden sign-in; sign in instead',
+          'token',
+        );
       const user = await deps.accounts.createUser({
         email: record.email,
         displayName,

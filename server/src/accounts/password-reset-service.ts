@@ -1,4 +1,5 @@
 import { AppError } from '../errors/app-error';
+import type { Logger } from '../logger';
 import type { AccountLinksRepository } from './account-links-repository';
 import type { AccountMail } from './account-mail';
 import type { AccountsRepository } from './accounts-repository';
@@ -17,16 +18,27 @@ export function createPasswordResetService(deps: {
   mail: AccountMail;
   publicUrl: () => string;
   now: () => number;
+  logger: Logger;
 }) {
+  async function sendLink(email: string): Promise<void> {
+    const user = await deps.accounts.findByEmail(email);
+    if (!user) return;
+    const { token, hash } = newOneTimeToken();
+    const expiresAt = new Date(deps.now() + PASSWORD_RESET_TTL_MS);
+    // The newest link is the only good one: issuing it voids every older one of this person.
+    await deps.links.createPasswordReset({ tokenHash: hash, userId: user.id, expiresAt });
+    await deps.mail.sendPasswordReset(user.email, `${deps.publicUrl()}/password-reset/${token}`, expiresAt);
+  }
+
   return {
-    /** Sends a link when the address is known; says nothing either way, so addresses cannot be probed. */
-    async request(email: string): Promise<void> {
-      const user = await deps.accounts.findByEmail(email);
-      if (!user) return;
-      const { token, hash } = newOneTimeToken();
-      const expiresAt = new Date(deps.now() + PASSWORD_RESET_TTL_MS);
-      await deps.links.createPasswordReset({ tokenHash: hash, userId: user.id, expiresAt });
-      await deps.mail.sendPasswordReset(user.email, `${deps.publicUrl()}/password-reset/${token}`, expiresAt);
+    /**
+     * Starts sending a link when the address is known and returns at once, before any lookup: the answer
+     * takes the same time and says the same words either way, so addresses cannot be probed.
+     */
+    request(email: string): void {
+      sendLink(email).catch((error) =>
+        deps.logger.warn('password reset link not sent', { error: String(error) }),
+      );
     },
 
     async complete(token: string, password: string): Promise<void> {
@@ -39,7 +51,8 @@ export function createPasswordResetService(deps: {
           'token',
         );
       await deps.accounts.setPassword(userId, await hashPassword(password));
-      await deps.sessions.revokeAllForUser(userId);
+      await deps.links.voidPasswordResets(userId);
+      await deps.sessions.endAllForUser(userId, 'password-reset');
     },
   };
 }

@@ -2,17 +2,25 @@ import type { RequestHandler } from 'express';
 import passport from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import { notAuthenticated } from '../errors/app-error';
-import type { AccountsRepository } from './accounts-repository';
-import { TOKEN_ALGORITHM, TOKEN_AUDIENCE, toPublicUser, type PublicUser } from './accounts-service';
+import { readAccessClaims, TOKEN_ALGORITHM, TOKEN_AUDIENCE } from './access-token';
+import type { AccountsService, PublicUser } from './accounts-service';
 
 declare module 'express-serve-static-core' {
   interface Request {
     currentUser?: PublicUser;
+    /** The sign-in session the request's access token belongs to. */
+    sessionId?: string;
   }
 }
 
-/** Middleware: a valid bearer token (algorithm pinned) naming a current user, or 401. */
-export function createRequireUser(repository: AccountsRepository, jwtSecret: string): RequestHandler {
+type SignedIn = { user: PublicUser; sessionId: string };
+
+/**
+ * Middleware: a valid bearer token (algorithm and audience pinned, every required claim present) whose
+ * sign-in session is still open, or 401. passport-jwt checks the signature and expiry; the claims and the
+ * session go through the same `userForClaims` the live stream uses.
+ */
+export function createRequireUser(accounts: AccountsService, jwtSecret: string): RequestHandler {
   const authenticator = new passport.Passport();
   authenticator.use(
     new JwtStrategy(
@@ -22,20 +30,22 @@ export function createRequireUser(repository: AccountsRepository, jwtSecret: str
         algorithms: [TOKEN_ALGORITHM],
         audience: TOKEN_AUDIENCE,
       },
-      (payload: { sub?: string }, done: (error: unknown, user?: PublicUser | false) => void) => {
-        if (!payload.sub) return done(null, false);
-        repository.findById(payload.sub).then(
-          (user) => done(null, user ? toPublicUser(user) : false),
-          (error) => done(error),
+      (payload: unknown, done: (error: unknown, user?: SignedIn | false) => void) => {
+        const claims = readAccessClaims(payload);
+        if (!claims) return done(null, false);
+        accounts.userForClaims(claims).then(
+          (user) => done(null, { user, sessionId: claims.sessionId }),
+          (error: { status?: number }) => (error?.status === 401 ? done(null, false) : done(error)),
         );
       },
     ),
   );
   return (req, res, next) => {
-    authenticator.authenticate('jwt', { session: false }, (error: unknown, user: PublicUser | false) => {
+    authenticator.authenticate('jwt', { session: false }, (error: unknown, signedIn: SignedIn | false) => {
       if (error) return next(error);
-      if (!user) return next(notAuthenticated());
-      req.currentUser = user;
+      if (!signedIn) return next(notAuthenticated());
+      req.currentUser = signedIn.user;
+      req.sessionId = signedIn.sessionId;
       next();
     })(req, res, next);
   };

@@ -2,17 +2,35 @@ import type { AedesOptions, Client, PublishPacket } from 'aedes';
 import { deviceIdFromReadingsTopic } from '@cellwarden/shared';
 import type { DevicesService } from '../devices/devices-service';
 import type { IngestService } from '../ingest/ingest-service';
+import { createLogThrottle } from '../log-throttle';
 import type { Logger } from '../logger';
+import { createConnectLimits, type ConnectLimits } from './connect-limits';
 import { createDeviceSessions } from './device-sessions';
 
 // Every broker access decision lives here: who may connect, publish and subscribe.
 
 /** MQTT 3.1.1 CONNACK return codes (OASIS MQTT 3.1.1, §3.2.2.3). */
+const IDENTIFIER_REJECTED = 2;
+const SERVER_UNAVAILABLE = 3;
 const BAD_USERNAME_OR_PASSWORD = 4;
 
-function authError(message: string) {
-  return Object.assign(new Error(message), { returnCode: BAD_USERNAME_OR_PASSWORD });
+const refusal = (returnCode: number, message: string) => Object.assign(new Error(message), { returnCode });
+
+// How long a connect over the per-device failure allowance waits for its answer (slowed, never refused).
+const SLOWED_CONNECT_MS = 2000;
+
+/**
+ * A device speaks only under its own client id: the device id itself, or the device id and `/` and a
+ * suffix (`/` is not in the device-id alphabet, so no device can claim another's). Otherwise a device
+ * could take over another's session: MQTT disconnects the older of two connections with one id.
+ */
+export function isOwnClientId(clientId: string, deviceId: string): boolean {
+  return clientId === deviceId || (clientId.startsWith(`${deviceId}/`) && clientId.length <= 128);
 }
+
+/** The remote address of a broker connection (the packet-size guard carries it over from the socket). */
+const addressOf = (client: Client) =>
+  String((client.conn as { remoteAddress?: string } | undefined)?.remoteAddress ?? 'unknown');
 
 /** The broker's authenticate/authorizePublish/authorizeSubscribe hooks. */
 export function createBrokerPolicy(deps: {
@@ -21,16 +39,38 @@ export function createBrokerPolicy(deps: {
   logger: Logger;
   /** How often an open connection's credentials are checked again, milliseconds (default 30 s). */
   recheckMs?: number;
+  limits?: ConnectLimits;
 }): Pick<AedesOptions, 'authenticate' | 'authorizePublish' | 'authorizeSubscribe'> & {
   credentialsChanged(deviceId: string): void;
 } {
   const sessions = createDeviceSessions({ devices: deps.devices, recheckMs: deps.recheckMs });
+  const limits = deps.limits ?? createConnectLimits();
+  // Refusals are logged as a count per device and interval, not a line per attempt.
+  const log = createLogThrottle(deps.logger);
+
+  async function connectDecision(client: Client, deviceId: string, secret: string) {
+    const address = addressOf(client);
+    const verdict = await limits.verdict(deviceId, address);
+    if (verdict === 'refuse')
+      return refusal(SERVER_UNAVAILABLE, 'Too many failed connects; try again in a minute');
+    if (verdict === 'slow') await new Promise((resolve) => setTimeout(resolve, SLOWED_CONNECT_MS));
+    const device = await deps.devices.authenticate(deviceId, secret);
+    if (!device) {
+      await limits.failed(deviceId, address);
+      return refusal(BAD_USERNAME_OR_PASSWORD, 'Bad device id or secret');
+    }
+    if (!isOwnClientId(client.id, device.deviceId))
+      return refusal(IDENTIFIER_REJECTED, `Client id must be ${device.deviceId} or ${device.deviceId}/…`);
+    await limits.succeeded(deviceId, address);
+    sessions.open(client, device, secret);
+    return null;
+  }
 
   // Resolves to the refusal, or null once the payload is stored (or refused as bad input and counted).
   async function publishDecision(client: Client | null, packet: PublishPacket): Promise<Error | null> {
     const device = await sessions.current(client);
     if (!device) {
-      deps.logger.warn('publish from a connection without valid device credentials', {
+      log.warn(`publish:${client?.id}`, 'publish from a connection without valid device credentials', {
         clientId: client?.id,
       });
       return new Error('Not a device connection, or its credentials were revoked');
@@ -45,7 +85,7 @@ export function createBrokerPolicy(deps: {
       await deps.ingest.accept(device, payload);
       return null;
     } catch (error) {
-      deps.logger.warn('reading not acknowledged; device will resend', {
+      log.warn(`unacked:${device.deviceId}`, 'reading not acknowledged; device will resend', {
         deviceId: device.deviceId,
         error: String(error),
       });
@@ -59,14 +99,14 @@ export function createBrokerPolicy(deps: {
 
     authenticate(client, username, password, done) {
       const secret = password ? Buffer.from(password).toString('utf8') : '';
-      deps.devices.authenticate(username ?? '', secret).then(
-        (device) => {
-          if (!device) {
-            deps.logger.warn('device refused at connect', { username, clientId: client.id });
-            return done(authError('Bad device id or secret') as never, false);
-          }
-          sessions.open(client, device, secret);
-          done(null, true);
+      connectDecision(client, String(username ?? '').slice(0, 100), secret).then(
+        (refused) => {
+          if (!refused) return done(null, true);
+          log.warn(`connect:${String(username)}`, 'device connect refused', {
+            deviceId: String(username ?? '').slice(0, 100),
+            reason: refused.message,
+          });
+          done(refused as never, false);
         },
         (error) => {
           deps.logger.error('device authentication failed', { error: String(error) });
@@ -84,7 +124,10 @@ export function createBrokerPolicy(deps: {
     // Devices only publish; nothing they could subscribe to is theirs to read. A null subscription makes aedes
     // answer SUBACK 0x80 (Failure, MQTT 3.1.1 §3.9.3) instead of dropping the connection without one (MQTT-3.8.4-1).
     authorizeSubscribe(client, subscription, callback) {
-      deps.logger.warn('subscribe refused', { clientId: client.id, topic: subscription.topic });
+      log.warn(`subscribe:${client.id}`, 'subscribe refused', {
+        clientId: client.id,
+        topic: subscription.topic,
+      });
       callback(null, null);
     },
   };

@@ -2,6 +2,7 @@ import { Aedes, type AedesOptions } from 'aedes';
 import { createServer, type AddressInfo, type Server } from 'node:net';
 import type { Logger } from '../logger';
 import type { createBrokerPolicy } from './broker-policy';
+import { MAX_MQTT_PACKET_BYTES, PacketSizeGuard } from './packet-size-guard';
 
 /** The embedded MQTT broker on a TCP listener. Persistence and emitter are aedes' in-memory defaults unless given. */
 export interface MqttBroker {
@@ -35,7 +36,17 @@ export async function startMqttBroker(options: {
   broker.on('clientError', (client, error) =>
     options.logger.debug('mqtt client error', { clientId: client.id, error: error.message }),
   );
-  const server: Server = createServer(broker.handle);
+  // Every connection reaches aedes through the guard, which refuses an oversized packet by its header.
+  const server: Server = createServer((socket) =>
+    broker.handle(
+      new PacketSizeGuard(socket, MAX_MQTT_PACKET_BYTES, () =>
+        options.logger.warn('mqtt packet over the size limit; connection closed', {
+          address: socket.remoteAddress,
+          limitBytes: MAX_MQTT_PACKET_BYTES,
+        }),
+      ),
+    ),
+  );
   server.on('error', (error) => options.logger.error('mqtt listener error', { error: error.message }));
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);

@@ -1,9 +1,8 @@
-import { randomBytes } from 'node:crypto';
 import { readingsTopic, type DeviceCredentials, type PublicUser } from '@cellwarden/shared';
-import { hashPassword, verifyPassword } from '../accounts/password-hashing';
 import type { AuditService } from '../audit/audit-service';
 import { AppError, notFound } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
+import { hashDeviceSecret, isLegacyDeviceHash, newDeviceSecret, verifyDeviceSecret } from './device-secret';
 import type { DevicesRepository } from './devices-repository';
 
 /** Device ids: what the database accepts, checked before any query. */
@@ -14,9 +13,6 @@ export interface AuthenticatedDevice {
   deviceId: string;
   systemId: string;
 }
-
-// 24 random bytes: 192 bits, far beyond guessing even at the broker's connection rate.
-const newSecret = () => randomBytes(24).toString('base64url');
 
 /** Device credentials: checked by the broker; added, rotated and revoked by those the policy allows. */
 export function createDevicesService(deps: {
@@ -42,12 +38,14 @@ export function createDevicesService(deps: {
 
   return {
     async authenticate(deviceId: string, secret: string): Promise<AuthenticatedDevice | undefined> {
-      if (!DEVICE_ID_PATTERN.test(deviceId) || secret.length === 0 || secret.length > 200) return undefined;
-      const device = await deps.repository.findById(deviceId);
-      if (!device || device.revokedAt) return undefined;
-      return (await verifyPassword(secret, device.secretHash))
-        ? { deviceId, systemId: device.systemId }
-        : undefined;
+      const wellFormed = DEVICE_ID_PATTERN.test(deviceId) && secret.length > 0 && secret.length <= 200;
+      const device = wellFormed ? await deps.repository.findById(deviceId) : undefined;
+      const usable = device && !device.revokedAt ? device : undefined;
+      // The same check runs for an unknown, revoked or malformed id, so its time says nothing about the id.
+      if (!(await verifyDeviceSecret(secret, usable?.secretHash)) || !usable) return undefined;
+      if (isLegacyDeviceHash(usable.secretHash))
+        await deps.repository.setSecret(usable.systemId, usable.id, hashDeviceSecret(secret));
+      return { deviceId, systemId: usable.systemId };
     },
 
     async list(user: PublicUser, systemId: string) {
@@ -58,13 +56,13 @@ export function createDevicesService(deps: {
     /** Adds a monitor and returns its credentials: the only time the secret is shown. */
     async add(user: PublicUser, systemId: string, id: string, label: string): Promise<DeviceCredentials> {
       const system = await managed(user, systemId);
-      const secret = newSecret();
+      const secret = newDeviceSecret();
       if (
         !(await deps.repository.insert({
           id,
           systemId: system.id,
           label,
-          secretHash: await hashPassword(secret),
+          secretHash: hashDeviceSecret(secret),
         }))
       )
         throw new AppError(
@@ -79,8 +77,8 @@ export function createDevicesService(deps: {
 
     async rotate(user: PublicUser, systemId: string, id: string): Promise<DeviceCredentials> {
       const system = await managed(user, systemId);
-      const secret = newSecret();
-      if (!(await deps.repository.setSecret(system.id, id, await hashPassword(secret))))
+      const secret = newDeviceSecret();
+      if (!(await deps.repository.setSecret(system.id, id, hashDeviceSecret(secret))))
         throw notFound('Device');
       deps.onCredentialsChanged?.(id);
       await deps.audit?.record(system.id, user, 'device.rotated', id);

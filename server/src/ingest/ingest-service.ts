@@ -1,4 +1,5 @@
 import { parseReadingPayload, TelemetryInputError } from '@cellwarden/shared';
+import { createLogThrottle } from '../log-throttle';
 import type { Logger } from '../logger';
 import type { BatchWriter } from './batch-writer';
 
@@ -8,12 +9,14 @@ export type RefusalCounts = Record<string, Record<string, number>>;
 /** Turns a device's MQTT payload into stored readings, or a counted refusal. */
 export function createIngestService(deps: { writer: BatchWriter; logger: Logger; now: () => number }) {
   const refusals: RefusalCounts = {};
+  // A misbehaving device may send hundreds of bad payloads a second: one line per device and minute.
+  const log = createLogThrottle(deps.logger);
   let stored = 0;
 
   function refuse(deviceId: string, code: string, message: string) {
     const counts = (refusals[deviceId] ??= {});
     counts[code] = (counts[code] ?? 0) + 1;
-    deps.logger.warn('reading refused', { deviceId, code, reason: message });
+    log.warn(`${deviceId}:${code}`, 'reading refused', { deviceId, code, reason: message });
   }
 
   return {

@@ -39,6 +39,17 @@ export function invitationMail(input: {
   ]);
 }
 
+/** An invitation to an address that already signs in: no link, since one person has one account. */
+export function invitationForExistingAccountMail(input: { companyName?: string | null }): MailContent {
+  const company = input.companyName ? stripControlCharacters(input.companyName) : '';
+  const joining = company ? `${company} on Cellwarden` : 'Cellwarden';
+  return compose(`Your invitation to ${joining}`, [
+    `Someone invited this address to join ${joining}, but it already has a Cellwarden sign-in.`,
+    'Sign in as usual; if you forgot your password, use "Forgot password" on the sign-in page.',
+    'If you did not expect this, ignore this message.',
+  ]);
+}
+
 /** A password reset link. */
 export function passwordResetMail(input: { link: string; expiresAt: number }): MailContent {
   return compose('Reset your Cellwarden password', [

@@ -86,3 +86,5 @@ export interface CompanyListing {
 
 /** Minimum password length, checked on every form and route that sets a password. */
 export const MIN_PASSWORD_LENGTH = 10;
+/** Longest password, in UTF-8 bytes: all that bcrypt reads, so none of a longer one is silently ignored. */
+export const MAX_PASSWORD_BYTES = 72;

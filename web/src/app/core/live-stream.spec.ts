@@ -1,9 +1,10 @@
 import { provideHttpClient } from '@angular/common/http';
-import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { Subject } from 'rxjs';
 import type { WebSocketSubjectConfig } from 'rxjs/webSocket';
+import { Auth } from './auth';
 import { LiveStream, WEB_SOCKET_FACTORY, reconnectDelay } from './live-stream';
 
 class FakeSocket extends Subject<unknown> {
@@ -54,6 +55,20 @@ describe('LiveStream', () => {
     expect(stream.connectionState()).toBe('open');
     expect(sockets[0].config.protocol).toEqual(['cellwarden.v1', 'bearer.']);
     expect(sockets[0].sent).toEqual([{ type: 'subscribe', systemIds: ['van-1'] }]);
+  });
+
+  it('hands a refreshed access token to the open socket so the server keeps it open', () => {
+    const stream = TestBed.inject(LiveStream);
+    const auth = TestBed.inject(Auth);
+    const http = TestBed.inject(HttpTestingController);
+    stream.readings('van-1').subscribe();
+    sockets[0].open();
+    auth.refresh().subscribe();
+    const user = { id: 'u1', email: 'a@b.example', displayName: 'A', roles: ['owner'], companyId: null };
+    http.expectOne('/api/auth/refresh').flush({ accessToken: 'fresh-token', expiresIn: 900, user });
+    TestBed.tick();
+    expect(sockets[0].sent).toContainEqual({ type: 'renew', token: 'fresh-token' });
+    expect(sockets).toHaveLength(1);
   });
 
   it('routes each reading to the subscriber of its system', () => {

@@ -1,4 +1,4 @@
-import { Injectable, InjectionToken, inject, signal } from '@angular/core';
+import { Injectable, InjectionToken, effect, inject, signal, untracked } from '@angular/core';
 import type { AlertEvent, DerivedState, ReceivedReading, StreamMessage } from '@cellwarden/shared';
 import { Observable, Subject, filter, map, retry, share, timer } from 'rxjs';
 import { WebSocketSubject, WebSocketSubjectConfig, webSocket } from 'rxjs/webSocket';
@@ -41,6 +41,16 @@ export class LiveStream {
   readonly connectionState = this.state.asReadonly();
   /** Errors the server reports on the stream. */
   readonly streamErrors$ = this.errors.asObservable();
+  // The token the open socket runs on; the server closes it when that token lapses unless renewed.
+  private socketToken: string | null = null;
+
+  constructor() {
+    // Each refreshed access token is handed to the open socket, so the stream outlives the one it began with.
+    effect(() => {
+      const token = this.auth.accessToken();
+      untracked(() => this.renew(token));
+    });
+  }
 
   /** Readings, alerts and the end of access for one system; subscribing opens the socket if needed. */
   events(systemId: string): Observable<SystemStreamEvent> {
@@ -109,6 +119,7 @@ export class LiveStream {
   private openSocket(): WebSocketSubject<unknown> {
     const protocol = location.protocol === 'https:' ? 'wss:' : 'ws:';
     const token = this.auth.accessToken() ?? '';
+    this.socketToken = token;
     const socket = this.createSocket({
       url: `${protocol}//${location.host}/api/stream`,
       protocol: ['cellwarden.v1', `bearer.${token}`],
@@ -121,6 +132,12 @@ export class LiveStream {
     });
     this.socket = socket;
     return socket;
+  }
+
+  private renew(token: string | null): void {
+    if (!token || token === this.socketToken || !this.socket || this.state() !== 'open') return;
+    this.socketToken = token;
+    this.socket.next({ type: 'renew', token });
   }
 
   private sendUnsubscribe(systemId: string): void {
