@@ -1,5 +1,6 @@
 import type { PublicUser } from '@cellwarden/shared';
 import type { AuditService } from '../audit/audit-service';
+import { isUuid } from '../database/sql-values';
 import { invalidInput } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
 import { parseQueryTime } from './query-time';
@@ -18,20 +19,25 @@ export function createReadingsService(deps: {
 }) {
   return {
     async history(user: PublicUser, systemId: string, query: { from?: unknown; to?: unknown }) {
-      const system = await deps.systems.getFor(user, systemId);
       const to = parseQueryTime('to', query.to, deps.now());
       const from = parseQueryTime('from', query.from, to.getTime() - 3600 * 1000);
       if (from >= to) throw invalidInput('from', 'from must be before to');
       if (to.getTime() - from.getTime() > MAX_RANGE_MS)
         throw invalidInput('from', 'range must be at most 400 days');
       const bucketMs = Math.ceil((to.getTime() - from.getTime()) / POINT_BUDGET);
-      const points = await deps.repository.listDownsampled(system.id, from, to, bucketMs, POINT_BUDGET);
-      await deps.audit.record(
-        system.id,
-        user,
-        'readings.viewed',
-        `${from.toISOString()} – ${to.toISOString()}`,
-      );
+      // The points are read while the access policy decides (its lookups would otherwise come first), and the
+      // view is recorded while the points are still being read. Nothing read is answered unless access is
+      // granted; an id that is not a uuid goes to the policy alone, which answers 404.
+      const reading = isUuid(systemId)
+        ? deps.repository.listDownsampled(systemId, from, to, bucketMs, POINT_BUDGET)
+        : undefined;
+      reading?.catch(() => undefined); // settled below, or dropped when access is refused
+      const system = await deps.systems.getFor(user, systemId);
+      const [points] = await Promise.all([
+        reading ?? deps.repository.listDownsampled(system.id, from, to, bucketMs, POINT_BUDGET),
+        // Recording never throws: a failed audit insert is logged and cannot lose the answer.
+        deps.audit.record(system.id, user, 'readings.viewed', `${from.toISOString()} – ${to.toISOString()}`),
+      ]);
       return { resolution: bucketMs <= 1000 ? 'raw' : `${Math.round(bucketMs / 1000)}s`, points };
     },
   };
