@@ -2,7 +2,7 @@
 export type { BatteryReading } from './telemetry/reading';
 export { TOPIC_ROOT, readingsTopic, deviceIdFromReadingsTopic } from './telemetry/topics';
 export type { Chemistry, ChemistryProfile } from './battery/chemistry-profile';
-export { CHEMISTRY_PROFILES } from './battery/chemistry-profile';
+export { CHEMISTRY_PROFILES, CHARGE_VOLTAGE_REFERENCE_C } from './battery/chemistry-profile';
 export { interpolateTable } from './battery/interpolate-table';
 export {
   openCircuitVoltage,
@@ -11,6 +11,8 @@ export {
   peukertEffectiveCurrent,
   cRate,
   wattHours,
+  chargeVoltageCompensation,
+  chemistryNominalVoltage,
 } from './battery/battery-math';
 export { TelemetryInputError } from './telemetry/telemetry-input-error';
 export type { ReadingValidationErrorCode } from './telemetry/reading-validation';

@@ -23,7 +23,7 @@ export interface BatterySetup {
   restCurrentA?: number;
   /** Charge current below which a bank held at the charged voltage is full, amperes. */
   tailCurrentA?: number;
-  /** Terminal voltage at or above which the bank is at the end of absorption, volts (whole bank). */
+  /** Terminal voltage at or above which the bank is at the end of absorption, volts (whole bank, at 25 °C; lead-acid is temperature-compensated from it). */
   chargedVoltage?: number;
   /** Minutes the charged voltage and tail current must hold before re-syncing to 100 %. */
   chargedHoldMinutes?: number;

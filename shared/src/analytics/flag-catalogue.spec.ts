@@ -19,4 +19,10 @@ describe('describeFlag', () => {
     expect(whatToDo).toMatch(/warm/);
     expect(whatToDo).toMatch(/BMS/);
   });
+
+  it('names the limits of the charge-temperature flags that follow the chemistry profile', () => {
+    // Cell datasheets (from memory): LiFePO4 charging stops about 45 °C, reduced current below about 10 °C
+    expect(describeFlag('hot-charging').meaning).toMatch(/45 °C/);
+    expect(describeFlag('cold-charge-current').meaning).toMatch(/10 °C/);
+  });
 });

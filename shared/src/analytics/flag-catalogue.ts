@@ -37,6 +37,19 @@ const CATALOGUE: Readonly<Record<FlagKind, FlagDescription>> = {
       'The battery is cooling and, at this rate, will reach its minimum charging temperature soon while charging.',
     whatToDo: 'Insulate or heat the battery space, or plan to stop charging before it gets that cold.',
   },
+  'hot-charging': {
+    title: 'Charging a battery that is too hot',
+    meaning:
+      "Current is flowing into the battery while it is above its maximum charging temperature (about 45 °C for LiFePO4). Charging hot cells ages them fast, and many battery makers' BMS stop charging at this point.",
+    whatToDo: `Reduce or stop charging until the battery has cooled, and ventilate the battery space. ${MONITOR_ONLY}`,
+  },
+  'cold-charge-current': {
+    title: 'Charge current too high for a cold battery',
+    meaning:
+      'The battery is above freezing but still cold (below about 10 °C for LiFePO4), where cell makers allow only a reduced charge current, and the charge current is above that.',
+    whatToDo:
+      "Turn the charger or DC-DC down (many have a low-temperature or reduced-current setting) or warm the battery first. Follow the battery manufacturer's instructions.",
+  },
   'over-temperature': {
     title: 'Battery is too hot',
     meaning: 'The battery temperature is above the safe level for this chemistry.',

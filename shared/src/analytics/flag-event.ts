@@ -10,6 +10,8 @@ export const FLAG_KINDS = [
   'low-voltage',
   'cold-charging',
   'cold-charge-ahead',
+  'hot-charging',
+  'cold-charge-current',
   'over-temperature',
   'over-discharge',
   'bms-cutoff-suspected',

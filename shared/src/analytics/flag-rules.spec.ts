@@ -58,4 +58,70 @@ describe('flag rules', () => {
     // Arithmetic: 3 °C above the limit at 6 °C per hour = 30 min
     expect(signal).toMatchObject({ trigger: 'warning', value: 30, unit: 'min' });
   });
+
+  it('flags charging a LiFePO4 pack above its charge temperature limit', () => {
+    // Cell datasheets (from memory): many makers stop charging at about 45 °C
+    expect(FLAG_RULES['hot-charging'](context({ current: 20, temperature: 46 }))).toMatchObject({
+      trigger: 'warning',
+      holds: true,
+    });
+    expect(FLAG_RULES['hot-charging'](context({ current: 20, temperature: 51 })).trigger).toBe('critical');
+    expect(FLAG_RULES['hot-charging'](context({ current: -20, temperature: 51 })).trigger).toBeUndefined();
+    expect(FLAG_RULES['hot-charging'](context({ current: 20, temperature: 44 })).trigger).toBeUndefined();
+  });
+
+  it('flags a charge current above the reduced rate between 0 and 10 °C', () => {
+    // Cell datasheets (from memory): ≤ 0.1 C between 0 and about 10 °C → 20 A on this 200 Ah bank
+    expect(settings.thresholds.reducedChargeCurrentA).toBe(20);
+    expect(FLAG_RULES['cold-charge-current'](context({ current: 40, temperature: 5 }))).toMatchObject({
+      trigger: 'warning',
+      value: 40,
+    });
+    expect(
+      FLAG_RULES['cold-charge-current'](context({ current: 15, temperature: 5 })).trigger,
+    ).toBeUndefined();
+    expect(
+      FLAG_RULES['cold-charge-current'](context({ current: 40, temperature: 12 })).trigger,
+    ).toBeUndefined();
+    // Below 0 °C it is cold charging, not this flag
+    expect(
+      FLAG_RULES['cold-charge-current'](context({ current: 40, temperature: -1 })).trigger,
+    ).toBeUndefined();
+  });
+
+  it('never raises the charge-temperature flags for lead-acid, whose profile sets no such limits', () => {
+    const agm = resolveBatterySetup({
+      chemistry: 'agm',
+      nominalVoltage: 12,
+      ratedCapacityAh: 100,
+      usableCapacityAh: 50,
+    });
+    const agmSettings: FlagSettings = { battery: agm, thresholds: defaultFlagThresholds('agm', 12, 100) };
+    const hot = { ...context({ current: 80, temperature: 48 }), settings: agmSettings };
+    const cold = { ...context({ current: 80, temperature: 3 }), settings: agmSettings };
+    expect(FLAG_RULES['hot-charging'](hot).trigger).toBeUndefined();
+    expect(FLAG_RULES['cold-charge-current'](cold).trigger).toBeUndefined();
+  });
+
+  it('judges a hot lead-acid bank in absorption at its compensated voltage, not as under-delivering', () => {
+    // AGM datasheets (from memory): 14.4 V at 25 °C, −24 mV/°C per 12 V block; at 40 °C absorption is 14.04 V
+    const agm = resolveBatterySetup({
+      chemistry: 'agm',
+      nominalVoltage: 12,
+      ratedCapacityAh: 100,
+      usableCapacityAh: 50,
+    });
+    const agmSettings: FlagSettings = {
+      battery: agm,
+      thresholds: defaultFlagThresholds('agm', 12, 100),
+      sources: [{ id: 'dcdc', kind: 'dc-dc', ratedCurrentA: 30 }],
+    };
+    const absorbing = {
+      ...context({ current: 5, voltage: 14.0, temperature: 40, sourceCurrents: { dcdc: 5 } }),
+      settings: agmSettings,
+    };
+    expect(FLAG_RULES['charger-under-delivering'](absorbing).trigger).toBeUndefined();
+    const cool = { ...absorbing, reading: { ...absorbing.reading, temperature: 25 } };
+    expect(FLAG_RULES['charger-under-delivering'](cool).trigger).toBe('warning');
+  });
 });

@@ -1,6 +1,7 @@
 // One rule per flag kind: from a reading, the estimate and the system's settings, where the watched value
 // stands against its start and release thresholds. Rules are pure and stateless; trends and previous
 // readings come in through `memory`, and the tracker adds hysteresis timing and minimum durations.
+import { chargeVoltageCompensation } from '../battery/battery-math';
 import { CHEMISTRY_PROFILES } from '../battery/chemistry-profile';
 import { BatteryReading } from '../telemetry/reading';
 import { packInternalResistance } from './battery-setup';
@@ -83,6 +84,45 @@ const coldChargeAhead: FlagRule = ({ reading, settings, memory }) => {
   };
 };
 
+// Hot charging: charge flowing while the pack is above the chemistry's charge limit (LiFePO4 ≈ 45 °C).
+const hotCharging: FlagRule = ({ reading, settings }) => {
+  const t = settings.thresholds;
+  const limit = t.maximumChargeTemperatureC;
+  const value = reading.temperature;
+  const charging = reading.current > t.chargeFlowingA;
+  return {
+    trigger: limit === undefined || !charging ? undefined : aboveLevels(value, limit, limit + 5, true),
+    // A degree of cooling or the charge all but stopping ends it.
+    holds: limit !== undefined && reading.current > t.chargeFlowingA / 2 && value > limit - 1,
+    value,
+    unit: '°C',
+    worse: 'high',
+  };
+};
+
+// Cold charge current: above the minimum charge temperature but in the band where cell makers cut the
+// current, the charge current exceeds the reduced rate. The value watched is the current.
+const coldChargeCurrent: FlagRule = ({ reading, settings }) => {
+  const t = settings.thresholds;
+  const below = t.reducedChargeBelowC;
+  const limit = t.reducedChargeCurrentA;
+  const value = Math.max(0, reading.current);
+  const inBand =
+    below !== undefined && reading.temperature >= t.minimumChargeTemperatureC && reading.temperature < below;
+  return {
+    trigger: inBand && limit !== undefined && value > limit ? 'warning' : undefined,
+    holds:
+      below !== undefined &&
+      limit !== undefined &&
+      reading.temperature >= t.minimumChargeTemperatureC &&
+      reading.temperature < below + 1 &&
+      value > limit * 0.9,
+    value,
+    unit: 'A',
+    worse: 'high',
+  };
+};
+
 const overTemperature: FlagRule = ({ reading, settings }) => {
   const t = settings.thresholds;
   const value = reading.temperature;
@@ -135,9 +175,12 @@ const BULK_CEILING_PERCENT = 90;
 const chargerUnderDelivering: FlagRule = ({ reading, settings, estimate }) => {
   const t = settings.thresholds;
   const blocks = settings.battery.nominalVoltage / 12;
-  const bulk =
-    estimate.stateOfCharge < BULK_CEILING_PERCENT &&
-    reading.voltage < (CHEMISTRY_PROFILES[settings.battery.chemistry].absorptionVoltage - 0.3) * blocks;
+  const { chemistry, nominalVoltage } = settings.battery;
+  // A compensating charger absorbs a hot lead-acid bank lower, so the bulk ceiling follows the temperature.
+  const absorption =
+    (CHEMISTRY_PROFILES[chemistry].absorptionVoltage - 0.3) * blocks +
+    chargeVoltageCompensation(chemistry, nominalVoltage, reading.temperature);
+  const bulk = estimate.stateOfCharge < BULK_CEILING_PERCENT && reading.voltage < absorption;
   const worst = weakestSource(reading, settings);
   const fraction = worst?.fraction ?? 1;
   return {
@@ -168,6 +211,8 @@ export const FLAG_RULES: Readonly<Record<Exclude<FlagKind, 'device-silent'>, Fla
   'low-voltage': lowVoltage,
   'cold-charging': coldCharging,
   'cold-charge-ahead': coldChargeAhead,
+  'hot-charging': hotCharging,
+  'cold-charge-current': coldChargeCurrent,
   'over-temperature': overTemperature,
   'over-discharge': overDischarge,
   'bms-cutoff-suspected': bmsCutoffSuspected,

@@ -19,6 +19,12 @@ export interface FlagThresholds {
   minimumChargeTemperatureC: number;
   /** Charge current above which the pack counts as being charged, A. */
   chargeFlowingA: number;
+  /** Above this pack temperature charging should stop, °C; undefined when the chemistry sets none. */
+  maximumChargeTemperatureC?: number;
+  /** Below this pack temperature (and above the minimum) the charge current should be reduced, °C. */
+  reducedChargeBelowC?: number;
+  /** The reduced charge current allowed there, A. */
+  reducedChargeCurrentA?: number;
   /** Start cold-charge-ahead when the limit is projected within this many minutes. */
   coldChargeAheadMinutes: number;
   overTemperatureWarningC: number;
@@ -52,6 +58,9 @@ const MINIMUM_DURATION_SECONDS: Record<FlagKind, number> = {
   'low-voltage': 30,
   'cold-charging': 30,
   'cold-charge-ahead': 120,
+  'hot-charging': 60,
+  // A DC-DC charger ramps up for a minute or so; a cold pack warming from its own charge ends it soon enough.
+  'cold-charge-current': 120,
   'over-temperature': 60,
   'over-discharge': 10,
   'bms-cutoff-suspected': 0,
@@ -66,6 +75,8 @@ const MINIMUM_DURATION_SECONDS: Record<FlagKind, number> = {
 const RELEASE_DELAY_SECONDS: Partial<Record<FlagKind, number>> = {
   'cold-charging': 900,
   'cold-charge-ahead': 300,
+  'hot-charging': 300,
+  'cold-charge-current': 300,
   'charger-under-delivering': 300,
   'low-voltage': 120,
   'over-discharge': 60,
@@ -79,6 +90,8 @@ export function defaultFlagThresholds(
 ): FlagThresholds {
   const blocks = nominalVoltage / 12;
   const lithium = chemistry === 'lifepo4';
+  const profile = CHEMISTRY_PROFILES[chemistry];
+  const reduced = profile.reducedChargeCurrent;
   return {
     // Lead-acid lives longest above 50 % (common practice); LiFePO4 tolerates deep cycles.
     lowChargeWarningPercent: lithium ? 20 : 50,
@@ -88,7 +101,17 @@ export function defaultFlagThresholds(
     lowVoltageWarningV: (lithium ? 12.0 : 11.8) * blocks,
     lowVoltageCriticalV: (lithium ? 11.6 : 11.5) * blocks,
     lowVoltageReleaseV: 0.2 * blocks,
-    minimumChargeTemperatureC: CHEMISTRY_PROFILES[chemistry].minimumChargeTemperature,
+    minimumChargeTemperatureC: profile.minimumChargeTemperature,
+    // Charge-when-hot and cold-current limits follow the chemistry profile (none for lead-acid).
+    ...(profile.maximumChargeTemperature === undefined
+      ? {}
+      : { maximumChargeTemperatureC: profile.maximumChargeTemperature }),
+    ...(reduced === undefined
+      ? {}
+      : {
+          reducedChargeBelowC: reduced.belowTemperature,
+          reducedChargeCurrentA: reduced.maximumCRate * ratedCapacityAh,
+        }),
     chargeFlowingA: Math.max(0.2, ratedCapacityAh * 0.005),
     coldChargeAheadMinutes: 45,
     // LiFePO4 cells are usually rated to 60 °C on discharge, lead-acid ages fast above 45 °C (from memory).

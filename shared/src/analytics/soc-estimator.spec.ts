@@ -110,6 +110,19 @@ describe('stepSocEstimate', () => {
     expect(estimate.lastFullAt).toBe(start + 184 * MINUTE);
   });
 
+  it('recognises a hot AGM bank on a compensating charger as full', () => {
+    const battery = bank('agm');
+    // AGM datasheets (from memory): absorption 14.4 V at 25 °C, −4 mV/°C per cell; at 40 °C a compensating
+    // charger absorbs at 14.4 − 0.004 × 6 × 15 = 14.04 V, below the 25 °C charged level of 14.2 V
+    let estimate = stepSocEstimate(undefined, reading(0, { stateOfCharge: 80, temperature: 40 }), battery);
+    estimate = hold(estimate, battery, 0, 5, { current: 2, voltage: 14.04, temperature: 40 });
+    expect(estimate.stateOfCharge).toBe(100);
+    // The same voltage at 25 °C is still short of the end of absorption
+    let cool = stepSocEstimate(undefined, reading(0, { stateOfCharge: 80 }), battery);
+    cool = hold(cool, battery, 0, 5, { current: 2, voltage: 14.04 });
+    expect(cool.stateOfCharge).toBeLessThan(100);
+  });
+
   it('does not call a bank full while the charge current is still above the tail current', () => {
     const battery = bank('lifepo4');
     let estimate = stepSocEstimate(undefined, reading(0, { stateOfCharge: 70 }), battery);

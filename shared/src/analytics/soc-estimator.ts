@@ -1,6 +1,7 @@
 // State of charge by coulomb counting, kept honest by two anchors: the open-circuit voltage after a long
 // enough rest, and a re-sync to 100 % at the end of charge. One O(1) step per reading; the state is a
 // handful of numbers so the server can keep one per system and persist it as JSON.
+import { chargeVoltageCompensation } from '../battery/battery-math';
 import { CHEMISTRY_PROFILES } from '../battery/chemistry-profile';
 import { BatteryReading } from '../telemetry/reading';
 import {
@@ -104,14 +105,19 @@ function applyRest(
   return next;
 }
 
-/** Sets the estimate to 100 % once charged voltage and tail current have held for the hold time. */
+/** Sets the estimate to 100 % once the (temperature-compensated) charged voltage and tail current have held long enough. */
 function applyEndOfCharge(
   state: SocEstimate,
   reading: BatteryReading,
   battery: ResolvedBatterySetup,
 ): SocEstimate {
+  // The charged voltage refers to 25 °C; a compensating charger holds a hot lead-acid bank lower (and a cold
+  // one higher), so the threshold follows the pack temperature or a hot bank would never count as full.
+  const chargedVoltage =
+    battery.chargedVoltage +
+    chargeVoltageCompensation(battery.chemistry, battery.nominalVoltage, reading.temperature);
   const atTail =
-    reading.voltage >= battery.chargedVoltage &&
+    reading.voltage >= chargedVoltage &&
     reading.current >= -battery.restCurrentA &&
     reading.current <= battery.tailCurrentA;
   if (!atTail) {

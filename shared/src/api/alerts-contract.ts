@@ -6,6 +6,8 @@ export type FlagKind =
   | 'low-voltage'
   | 'cold-charging'
   | 'cold-charge-ahead'
+  | 'hot-charging'
+  | 'cold-charge-current'
   | 'over-temperature'
   | 'over-discharge'
   | 'bms-cutoff-suspected'

@@ -1,6 +1,7 @@
 import { capacityFactor, openCircuitVoltage } from './battery-math';
 import { CHEMISTRY_PROFILES } from './chemistry-profile';
 import { interpolateTable } from './interpolate-table';
+import { stateOfChargeFromOpenCircuit } from '../analytics/open-circuit-soc';
 
 describe('chemistry profiles', () => {
   it('rests an AGM block near the usual table points', () => {
@@ -17,6 +18,16 @@ describe('chemistry profiles', () => {
     expect(openCircuitVoltage('lifepo4', 12, 0)).toBeCloseTo(10.0, 1);
     const midRange = openCircuitVoltage('lifepo4', 12, 80) - openCircuitVoltage('lifepo4', 12, 20);
     expect(midRange).toBeLessThan(0.5);
+  });
+
+  it('reads a rested, nearly empty LiFePO4 pack as nearly empty', () => {
+    // Published OCV-SoC curves of LiFePO4 cells (from memory): ≈3.2 V/cell at 10 %, falling steeply only in the
+    // last few percent; 3.0 V/cell (12.0 V) is about 2 %. A straight line from 10.0 V to 12.8 V put 12.0 V at 7 %.
+    expect(openCircuitVoltage('lifepo4', 12, 10)).toBeCloseTo(12.8, 2);
+    expect(openCircuitVoltage('lifepo4', 12, 2)).toBeCloseTo(12.0, 2);
+    expect(stateOfChargeFromOpenCircuit('lifepo4', 12, 12.0)).toBeLessThanOrEqual(2);
+    expect(stateOfChargeFromOpenCircuit('lifepo4', 12, 12.4)).toBeLessThan(5);
+    expect(stateOfChargeFromOpenCircuit('lifepo4', 24, 24.8)).toBeLessThan(5);
   });
 
   it('scales every table by nominal/12 for 24 and 48 V banks', () => {

@@ -15,17 +15,36 @@ export interface ChemistryProfile {
   internalResistance100Ah: number;
   /** Usable capacity fraction vs temperature: [°C, fraction], ascending. */
   capacityFactorTable: readonly (readonly [number, number])[];
+  /** Charge voltages of a 12 V block at 25 °C, volts. */
   bulkVoltage: number;
   absorptionVoltage: number;
   floatVoltage: number;
   lowVoltageCutoff: number;
+  /** Nominal voltage of one "12 V" block of this chemistry (4 × 3.2 V LiFePO4, 6 × 2.0 V lead-acid), volts. */
+  nominalBlockVoltage: number;
+  /** Cells in series in one 12 V block. */
+  cellsPerBlock: number;
+  /** Change of the charge voltages per cell per °C away from 25 °C, volts (0: not compensated). */
+  chargeVoltageCoefficientPerCell: number;
+  /** Above this pack temperature charging should stop, °C; undefined when the chemistry sets none. */
+  maximumChargeTemperature?: number;
+  /** Below `belowTemperature` (and above the minimum) charge current should stay under `maximumCRate` × capacity. */
+  reducedChargeCurrent?: { belowTemperature: number; maximumCRate: number };
 }
+
+/** Temperature the charge voltages of a profile refer to, °C (lead-acid datasheets, from memory). */
+export const CHARGE_VOLTAGE_REFERENCE_C = 25;
 
 // Values are typical of trade datasheets and quoted from memory unless a spec checks them against a source.
 export const CHEMISTRY_PROFILES: Readonly<Record<Chemistry, ChemistryProfile>> = {
   lifepo4: {
     openCircuitVoltageTable: [
+      // LiFePO4/graphite rests above 3.2 V/cell down to about 10 % and falls steeply only in the last few
+      // percent (published OCV-SoC curves of LFP cells, from memory): a straight line from the 2.5 V cut-off
+      // to 10 % would read a rested, nearly empty pack several points too full.
       [0, 10.0],
+      [2, 12.0],
+      [5, 12.5],
       [10, 12.8],
       [20, 13.0],
       [30, 13.05],
@@ -51,6 +70,14 @@ export const CHEMISTRY_PROFILES: Readonly<Record<Chemistry, ChemistryProfile>> =
     absorptionVoltage: 14.2,
     floatVoltage: 13.5,
     lowVoltageCutoff: 10.0,
+    nominalBlockVoltage: 12.8,
+    cellsPerBlock: 4,
+    // LiFePO4 chargers do not compensate for temperature (cell datasheets, common practice).
+    chargeVoltageCoefficientPerCell: 0,
+    // Many cell makers stop charging at about 45 °C and cut the current between 0 and about 10 °C
+    // (cell datasheets, from memory; 0.1 C is the conservative end of their range).
+    maximumChargeTemperature: 45,
+    reducedChargeCurrent: { belowTemperature: 10, maximumCRate: 0.1 },
   },
   agm: {
     openCircuitVoltageTable: [
@@ -80,6 +107,10 @@ export const CHEMISTRY_PROFILES: Readonly<Record<Chemistry, ChemistryProfile>> =
     absorptionVoltage: 14.4,
     floatVoltage: 13.6,
     lowVoltageCutoff: 10.5,
+    nominalBlockVoltage: 12,
+    cellsPerBlock: 6,
+    // −4 mV per cell per °C from 25 °C (AGM datasheets, from memory): −24 mV/°C on a 12 V block.
+    chargeVoltageCoefficientPerCell: -0.004,
   },
   flooded: {
     openCircuitVoltageTable: [
@@ -109,5 +140,9 @@ export const CHEMISTRY_PROFILES: Readonly<Record<Chemistry, ChemistryProfile>> =
     absorptionVoltage: 14.6,
     floatVoltage: 13.5,
     lowVoltageCutoff: 10.5,
+    nominalBlockVoltage: 12,
+    cellsPerBlock: 6,
+    // −5 mV per cell per °C from 25 °C (flooded deep-cycle datasheets, from memory).
+    chargeVoltageCoefficientPerCell: -0.005,
   },
 };
