@@ -1,5 +1,6 @@
 // The shape of an energy budget and its validation: one place that says what a sensible entry is, so
 // the arithmetic in energy-budget.ts can trust its input.
+import { Chemistry } from '../battery/chemistry-profile';
 import { InstallerInputError, requireNumberInRange, requireOneOf } from './installer-input-error';
 import { SYSTEM_VOLTAGES, SystemVoltage } from './system-voltage';
 
@@ -36,6 +37,16 @@ export interface BudgetSystem {
   daysOfAutonomy: number;
   /** Rated capacity of the installed battery, Ah, when there is one to judge. */
   batteryCapacityAh?: number;
+  /** Battery chemistry: sets the nominal voltage for Ah, the charge efficiency and Peukert; without it, the class voltage and no losses. */
+  chemistry?: Chemistry;
+  /** Inverter's own draw while switched on with no load, W (from its datasheet; 0 when none). */
+  inverterStandbyW?: number;
+  /** Hours a day the inverter is left on, h (default 24). */
+  inverterStandbyHoursPerDay?: number;
+  /** Inverter's surge (peak) output for a few seconds, W. */
+  inverterSurgeW?: number;
+  /** The BMS's peak (short-time) discharge rating, A. */
+  bmsPeakA?: number;
 }
 
 /** Everything an energy budget needs. */
@@ -113,6 +124,19 @@ function validateSystem(system: BudgetSystem): void {
   requireNumberInRange('system.daysOfAutonomy', system.daysOfAutonomy, positive(30, 'days'));
   if (system.batteryCapacityAh !== undefined) {
     requireNumberInRange('system.batteryCapacityAh', system.batteryCapacityAh, positive(20000, 'Ah'));
+  }
+  if (system.chemistry !== undefined) {
+    requireOneOf('system.chemistry', system.chemistry, ['lifepo4', 'agm', 'flooded']);
+  }
+  const optional: [keyof BudgetSystem, { min: number; max: number; exclusiveMin?: boolean; unit: string }][] =
+    [
+      ['inverterStandbyW', nonNegative(1000, 'W')],
+      ['inverterStandbyHoursPerDay', nonNegative(24, 'h')],
+      ['inverterSurgeW', nonNegative(60000, 'W')],
+      ['bmsPeakA', positive(10000, 'A')],
+    ];
+  for (const [field, range] of optional) {
+    if (system[field] !== undefined) requireNumberInRange(`system.${field}`, system[field], range);
   }
 }
 

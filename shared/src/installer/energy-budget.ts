@@ -1,132 +1,178 @@
-// A daily energy budget at the battery terminals: what the loads take, what the sources give, and
-// whether the battery, inverter and BMS are matched to it. Coulombic (charge) losses are not modelled.
+// A daily energy budget at the battery terminals: what the loads take (the inverter's standby included),
+// what the sources give and how much of it the chemistry stores, and whether the battery, inverter and BMS
+// are matched to it. Amp-hours are at the chemistry's nominal voltage (12.8 V per LiFePO4 block, 12 V
+// lead-acid); a lead-acid bank's autonomy allows for Peukert at the day's mean discharge current.
+import { chemistryNominalVoltage } from '../battery/battery-math';
+import { CHEMISTRY_PROFILES } from '../battery/chemistry-profile';
+import { BudgetCircuit, budgetCircuits, inverterDcCurrent } from './budget-circuits';
 import {
   BudgetLoad,
   BudgetSource,
+  BudgetSystem,
   EnergyBudgetInput,
   validateEnergyBudgetInput,
 } from './energy-budget-input';
-import { formatAmount, InstallerFinding, InstallerVerdict, verdictOf } from './installer-finding';
+import { budgetFindings } from './energy-budget-findings';
+import { InstallerVerdict, verdictOf } from './installer-finding';
+
+export { inverterDcCurrent } from './budget-circuits';
 
 /** Solar derating when none is given: temperature, soiling, wiring and controller losses (common practice). */
 export const DEFAULT_SOLAR_DERATE_PERCENT = 20;
 
+/** Discharge time a lead-acid capacity is rated at, h (the usual 20 h rating). */
+const RATED_HOURS = 20;
+
 /** The budget's daily figures at the battery and its findings. */
 export interface EnergyBudget {
-  /** Each load's daily energy drawn from the battery (AC loads include inverter losses), Wh. */
+  /** Each load's daily energy drawn from the battery (AC loads include inverter losses; standby last), Wh. */
   loads: { name: string; whPerDay: number }[];
   /** Each source's daily energy delivered to the battery, Wh, in input order. */
   sources: { kind: BudgetSource['kind']; whPerDay: number }[];
-  /** Energy in per day, Wh. */
+  /** Energy delivered to the battery per day, Wh. */
   whInPerDay: number;
+  /** Of that, the energy stored after the chemistry's charge efficiency, Wh. */
+  whStoredPerDay: number;
   /** Energy out per day, Wh. */
   whOutPerDay: number;
-  /** Charge in per day at the nominal voltage, Ah. */
+  /** Voltage the amp-hours are counted at: the chemistry's nominal, else the class voltage, V. */
+  ampHourVoltage: number;
+  /** Fraction of the charge delivered that is stored (1 without a chemistry). */
+  chargeEfficiency: number;
+  /** Charge in per day, Ah. */
   ahInPerDay: number;
-  /** Charge out per day at the nominal voltage, Ah. */
+  /** Charge out per day, Ah. */
   ahOutPerDay: number;
-  /** In minus out per day, Wh (negative: the battery runs down). */
+  /** Stored minus out per day, Wh (negative: the battery runs down). */
   balanceWhPerDay: number;
-  /** In minus out per day at the nominal voltage, Ah. */
+  /** Stored minus out per day, Ah. */
   balanceAhPerDay: number;
+  /** Share of the rated capacity available at the day's mean discharge current (Peukert; 1 for LiFePO4). */
+  peukertCapacityFraction: number;
   /** Days the given battery's usable energy carries the loads with no charging; undefined without a battery or loads. */
   autonomyDays: number | undefined;
   /** Days until the given battery's usable energy is spent at a negative balance; undefined otherwise. */
   daysUntilEmpty: number | undefined;
+  /** Days for the daily surplus to refill the usable capacity from empty; undefined without a battery or a surplus. */
+  daysToRecharge: number | undefined;
   /** Rated capacity that carries the loads for the requested days of autonomy, Ah. */
   suggestedBatteryAh: number;
   /** Battery current of the inverter at its rated output, A. */
   inverterDcCurrentA: number;
+  /** Battery current of the inverter at its surge output, A, when a surge rating is given. */
+  inverterSurgeDcCurrentA: number | undefined;
+  /** Energy the inverter takes idling, Wh/day. */
+  inverterStandbyWhPerDay: number;
+  /** The DC circuits and their currents, to size each cable and fuse. */
+  circuits: BudgetCircuit[];
   /** Matching of inverter, BMS and balance. */
   verdict: InstallerVerdict;
 }
 
-/** Daily energy a load draws from the battery, Wh. */
-export function loadWhPerDay(load: BudgetLoad, nominalVoltage: number, inverterEfficiency: number): number {
-  const watts = load.amps !== undefined ? load.amps * nominalVoltage : load.watts;
+/** Daily energy a load draws from the battery, Wh (`voltage`: what a DC load's amps are drawn at). */
+export function loadWhPerDay(load: BudgetLoad, voltage: number, inverterEfficiency: number): number {
+  const watts = load.amps !== undefined ? load.amps * voltage : load.watts;
   const atLoad = watts * load.hoursPerDay * load.dutyCycle;
   return load.ac ? atLoad / inverterEfficiency : atLoad;
 }
 
 /** Daily energy a source delivers to the battery, Wh. */
-export function sourceWhPerDay(source: BudgetSource, nominalVoltage: number): number {
+export function sourceWhPerDay(source: BudgetSource, voltage: number): number {
   if (source.kind === 'solar') {
     const derate = source.deratePercent ?? DEFAULT_SOLAR_DERATE_PERCENT;
     return source.watts * source.peakSunHours * (1 - derate / 100);
   }
-  return source.amps * source.hoursPerDay * nominalVoltage;
+  return source.amps * source.hoursPerDay * voltage;
 }
 
-/** Battery current an inverter draws at an AC output power, A (P / (V × η)). */
-export function inverterDcCurrent(acWatts: number, nominalVoltage: number, efficiency: number): number {
-  return acWatts / (nominalVoltage * efficiency);
+/** Inverter idle energy per day, Wh (none without an inverter). */
+export function inverterStandbyWhPerDay(system: BudgetSystem): number {
+  if (system.inverterRatedW === 0) return 0;
+  return (system.inverterStandbyW ?? 0) * (system.inverterStandbyHoursPerDay ?? 24);
+}
+
+/**
+ * Share of the rated (20 h) capacity a lead-acid bank gives at a steady current: Peukert's t = H (C/(I H))^k
+ * means C_I = C (C/(I H))^(k − 1); never credited above the rating at currents below C/20.
+ */
+export function peukertCapacityFraction(
+  system: BudgetSystem,
+  capacityAh: number,
+  meanCurrentA: number,
+): number {
+  if (system.chemistry === undefined || system.chemistry === 'lifepo4' || !(meanCurrentA > 0)) return 1;
+  const k = CHEMISTRY_PROFILES[system.chemistry].peukertExponent;
+  return Math.min(1, Math.pow(capacityAh / (meanCurrentA * RATED_HOURS), k - 1));
+}
+
+function suggestedCapacityAh(system: BudgetSystem, whOut: number, voltage: number): number {
+  const plain = (whOut * system.daysOfAutonomy) / (voltage * system.usableFraction);
+  const meanCurrent = whOut / 24 / voltage;
+  let capacity = plain;
+  // The Peukert share grows with capacity, so a few fixed-point steps settle it.
+  for (let i = 0; i < 20; i++) capacity = plain / peukertCapacityFraction(system, capacity, meanCurrent);
+  return capacity;
 }
 
 /** Works out a daily energy budget; throws InstallerInputError naming the first bad field. */
 export function energyBudget(input: EnergyBudgetInput): EnergyBudget {
   validateEnergyBudgetInput(input);
   const { system } = input;
-  const v = system.nominalVoltage;
+  const voltage =
+    system.chemistry === undefined
+      ? system.nominalVoltage
+      : chemistryNominalVoltage(system.chemistry, system.nominalVoltage);
+  const chargeEfficiency =
+    system.chemistry === undefined ? 1 : CHEMISTRY_PROFILES[system.chemistry].chargeEfficiency;
+  const standbyWh = inverterStandbyWhPerDay(system);
   const loads = input.loads.map((l) => ({
     name: l.name,
-    whPerDay: loadWhPerDay(l, v, system.inverterEfficiency),
+    whPerDay: loadWhPerDay(l, voltage, system.inverterEfficiency),
   }));
-  const sources = input.sources.map((s) => ({ kind: s.kind, whPerDay: sourceWhPerDay(s, v) }));
+  if (standbyWh > 0) loads.push({ name: 'Inverter standby', whPerDay: standbyWh });
+  const sources = input.sources.map((s) => ({ kind: s.kind, whPerDay: sourceWhPerDay(s, voltage) }));
   const whOutPerDay = sum(loads.map((l) => l.whPerDay));
   const whInPerDay = sum(sources.map((s) => s.whPerDay));
-  const balanceWhPerDay = whInPerDay - whOutPerDay;
-  const usableWh =
-    system.batteryCapacityAh === undefined ? undefined : system.batteryCapacityAh * v * system.usableFraction;
-  const inverterDcCurrentA = inverterDcCurrent(system.inverterRatedW, v, system.inverterEfficiency);
+  const whStoredPerDay = whInPerDay * chargeEfficiency;
+  const balanceWhPerDay = whStoredPerDay - whOutPerDay;
+  const capacity = system.batteryCapacityAh;
+  const peukert =
+    capacity === undefined ? 1 : peukertCapacityFraction(system, capacity, whOutPerDay / 24 / voltage);
+  const usableWh = capacity === undefined ? undefined : capacity * voltage * system.usableFraction * peukert;
+  const inverterDcCurrentA = inverterDcCurrent(
+    system.inverterRatedW,
+    system.nominalVoltage,
+    system.inverterEfficiency,
+  );
+  const inverterSurgeDcCurrentA =
+    system.inverterSurgeW === undefined || system.inverterRatedW === 0
+      ? undefined
+      : inverterDcCurrent(system.inverterSurgeW, system.nominalVoltage, system.inverterEfficiency);
   return {
     loads,
     sources,
     whInPerDay,
+    whStoredPerDay,
     whOutPerDay,
-    ahInPerDay: whInPerDay / v,
-    ahOutPerDay: whOutPerDay / v,
+    ampHourVoltage: voltage,
+    chargeEfficiency,
+    ahInPerDay: whInPerDay / voltage,
+    ahOutPerDay: whOutPerDay / voltage,
     balanceWhPerDay,
-    balanceAhPerDay: balanceWhPerDay / v,
+    balanceAhPerDay: balanceWhPerDay / voltage,
+    peukertCapacityFraction: peukert,
     autonomyDays: usableWh !== undefined && whOutPerDay > 0 ? usableWh / whOutPerDay : undefined,
     daysUntilEmpty: usableWh !== undefined && balanceWhPerDay < 0 ? usableWh / -balanceWhPerDay : undefined,
-    suggestedBatteryAh: (whOutPerDay * system.daysOfAutonomy) / (v * system.usableFraction),
+    daysToRecharge: usableWh !== undefined && balanceWhPerDay > 0 ? usableWh / balanceWhPerDay : undefined,
+    suggestedBatteryAh: suggestedCapacityAh(system, whOutPerDay, voltage),
     inverterDcCurrentA,
-    verdict: verdictOf(budgetFindings(input, inverterDcCurrentA, balanceWhPerDay)),
+    inverterSurgeDcCurrentA,
+    inverterStandbyWhPerDay: standbyWh,
+    circuits: budgetCircuits(input),
+    verdict: verdictOf(
+      budgetFindings(input, { inverterDcCurrentA, inverterSurgeDcCurrentA, balanceWhPerDay }),
+    ),
   };
-}
-
-function budgetFindings(input: EnergyBudgetInput, inverterA: number, balanceWh: number): InstallerFinding[] {
-  const { system } = input;
-  const findings: InstallerFinding[] = [];
-  const acWatts = sum(input.loads.filter((l) => l.ac).map((l) => l.watts ?? 0));
-  if (inverterA > system.bmsContinuousA) {
-    findings.push({
-      severity: 'error',
-      code: 'inverter-exceeds-bms',
-      message: `at its rated ${system.inverterRatedW} W the inverter draws about ${formatAmount(inverterA)} A, above the BMS continuous rating of ${system.bmsContinuousA} A`,
-    });
-  }
-  if (acWatts > 0 && system.inverterRatedW === 0) {
-    findings.push({
-      severity: 'error',
-      code: 'ac-loads-without-inverter',
-      message: 'AC loads are listed but no inverter is rated',
-    });
-  } else if (acWatts > system.inverterRatedW) {
-    findings.push({
-      severity: 'warning',
-      code: 'ac-loads-exceed-inverter',
-      message: `the AC loads add up to ${acWatts} W, above the inverter's ${system.inverterRatedW} W if all run at once`,
-    });
-  }
-  if (balanceWh < 0) {
-    findings.push({
-      severity: 'warning',
-      code: 'daily-deficit',
-      message: `the loads take ${formatAmount(-balanceWh)} Wh a day more than the sources give`,
-    });
-  }
-  return findings;
 }
 
 function sum(values: readonly number[]): number {

@@ -61,7 +61,14 @@ export type { ConductorFigures, WireFuseCheckResult } from './wire-fuse-check';
 export { WIRE_AND_FUSE_CAUTIONS, checkWireAndFuse } from './wire-fuse-check';
 export type { BudgetLoad, BudgetSource, BudgetSystem, EnergyBudgetInput } from './energy-budget-input';
 export type { EnergyBudget } from './energy-budget';
-export { DEFAULT_SOLAR_DERATE_PERCENT, energyBudget, inverterDcCurrent } from './energy-budget';
+export {
+  DEFAULT_SOLAR_DERATE_PERCENT,
+  energyBudget,
+  inverterDcCurrent,
+  peukertCapacityFraction,
+} from './energy-budget';
+export type { BudgetCircuit } from './budget-circuits';
+export { budgetCircuits } from './budget-circuits';
 export type { BudgetComparison, MeasuredEnergy } from './budget-comparison';
 export { compareBudgetWithActual } from './budget-comparison';
 export type { CommissioningOptions } from './commissioning-options';
