@@ -101,7 +101,8 @@ function checkValueCount(record: SenmlRecord, path: string): void {
       { field: `${path}.${present[1]}` },
     );
   }
-  if (present.length === 0 && record.s === undefined) {
+  // RFC 8428 §4.5.4: a base sum in the record gives it a sum even without its own s.
+  if (present.length === 0 && record.s === undefined && record.bs === undefined) {
     throw new SenmlError('senml_no_value', `${path} must carry one of v, vs, vb, vd or s; got none`, {
       field: path,
     });

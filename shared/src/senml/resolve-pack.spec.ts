@@ -55,14 +55,15 @@ describe('resolvePack', () => {
   });
 
   it('resolves the multiple-measurements example to the RFC resolved form', () => {
-    // RFC 8428 §5.1.4: the §5.1.3 pack resolved — full names, base unit applied, absolute times
+    // RFC 8428 §5.1.2 pack resolved per §4.6 — full names, base unit applied, absolute times, and records in
+    // chronological order (the voltage, sent first, was measured with the last current sample)
     const expected = [
-      { n: 'urn:dev:ow:10e2073a0108006:voltage', u: 'V', v: 120.1, t: 1.276020076001e9 },
       { n: 'urn:dev:ow:10e2073a0108006:current', u: 'A', v: 1.2, t: 1.276020071001e9 },
       { n: 'urn:dev:ow:10e2073a0108006:current', u: 'A', v: 1.3, t: 1.276020072001e9 },
       { n: 'urn:dev:ow:10e2073a0108006:current', u: 'A', v: 1.4, t: 1.276020073001e9 },
       { n: 'urn:dev:ow:10e2073a0108006:current', u: 'A', v: 1.5, t: 1.276020074001e9 },
       { n: 'urn:dev:ow:10e2073a0108006:current', u: 'A', v: 1.6, t: 1.276020075001e9 },
+      { n: 'urn:dev:ow:10e2073a0108006:voltage', u: 'V', v: 120.1, t: 1.276020076001e9 },
       { n: 'urn:dev:ow:10e2073a0108006:current', u: 'A', v: 1.7, t: 1.276020076001e9 },
     ];
     const resolved = resolvePack(multipleMeasurements, { now });
@@ -114,10 +115,11 @@ describe('resolvePack', () => {
       { n: 'b', v: 1, t: 2 ** 28 - 1 },
       { n: 'c', v: 1, t: 2 ** 28 },
     ];
-    expect(resolvePack(pack, { now }).map((record) => record.t)).toEqual([
-      now - 60,
-      now + 2 ** 28 - 1,
-      2 ** 28,
+    // (§4.6 then orders them by time: the absolute 2^28 s of 1978 comes first)
+    expect(resolvePack(pack, { now }).map((record) => [record.n, record.t])).toEqual([
+      ['c', 2 ** 28],
+      ['a', now - 60],
+      ['b', now + 2 ** 28 - 1],
     ]);
   });
 
@@ -153,5 +155,38 @@ describe('resolvePack', () => {
     const error = refusal([{ n: 'x', bv: 1.7e308, v: 1.7e308 }]);
     expect(error.code).toBe('senml_not_finite');
     expect(error.field).toBe('[0].v');
+  });
+
+  it('gives a record the base sum as its sum when it has no sum of its own', () => {
+    // RFC 8428 §4.5.4: if only one of the Base Sum or Sum is present, the missing one is taken as zero
+    // (check-pack accepts a record whose only sum is its own base sum, RFC 8428 §4.2)
+    const pack = [
+      { bn: 'meter:', bs: 1000, n: 'energy', u: 'J' },
+      { n: 'energy', u: 'J', s: 5, t: 1 },
+      { bn: 'other:', n: 'power', u: 'W', v: 3, t: 2 },
+    ];
+    const [first, second, third] = resolvePack(pack, { now });
+    expect(first).toEqual({ n: 'meter:energy', u: 'J', s: 1000, t: now });
+    expect(second.s).toBe(1005);
+    // The base sum still applies (§4.1): base fields hold until a later record sets them again
+    expect(third.s).toBe(1000);
+    // Neither present: no sum at all
+    expect(resolvePack([{ n: 'x', v: 1 }], { now })[0]).not.toHaveProperty('s');
+  });
+
+  it('puts the resolved records in chronological order, keeping the order within one instant', () => {
+    // RFC 8428 §4.6: resolved records are sorted in chronological order
+    const pack = [
+      { bn: 'dev:', bt: 1.8e9, n: 'b', v: 2, t: 10 },
+      { n: 'a', v: 1, t: 0 },
+      { n: 'c', v: 3, t: 10 },
+      { n: 'd', v: 4, t: 5 },
+    ];
+    expect(resolvePack(pack, { now }).map((r) => [r.n, r.t - 1.8e9])).toEqual([
+      ['dev:a', 0],
+      ['dev:d', 5],
+      ['dev:b', 10],
+      ['dev:c', 10],
+    ]);
   });
 });

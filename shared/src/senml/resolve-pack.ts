@@ -1,5 +1,6 @@
 // RFC 8428 §4.6: turns a pack into resolved records, applying base fields the way §4.1 describes — each
-// base field holds from its record onwards until a later record sets the same base field again.
+// base field holds from its record onwards until a later record sets the same base field again — and puts
+// the resolved records in chronological order.
 import { checkPack } from './check-pack';
 import { badNameError, SenmlError } from './senml-error';
 import { isSenmlName } from './senml-name';
@@ -10,18 +11,22 @@ interface BaseFields {
   bt: number;
   bu?: string;
   bv: number;
-  bs: number;
+  /** Undefined until a record sets it: a base sum, once present, gives every later record a sum (§4.5.4). */
+  bs?: number;
   bver: number;
 }
 
 /** Checks and resolves a JSON-parsed pack; `now` is the receiver's clock in seconds since the epoch. */
 export function resolvePack(pack: unknown, options: { now: number }): ResolvedSenmlRecord[] {
   const records = checkPack(pack);
-  const base: BaseFields = { bn: '', bt: 0, bv: 0, bs: 0, bver: SENML_VERSION };
-  return records.map((record, index) => {
+  const base: BaseFields = { bn: '', bt: 0, bv: 0, bver: SENML_VERSION };
+  const resolved = records.map((record, index) => {
     carryBaseFields(base, record);
     return resolveRecord(record, base, options.now, `[${index}]`);
   });
+  // RFC 8428 §4.6: resolved records are in chronological order; the sort is stable, so records of one
+  // instant keep the order the sender gave them.
+  return resolved.sort((a, b) => a.t - b.t);
 }
 
 function carryBaseFields(base: BaseFields, record: SenmlRecord): void {
@@ -49,7 +54,11 @@ function resolveRecord(
   if (record.vs !== undefined) resolved.vs = record.vs;
   if (record.vb !== undefined) resolved.vb = record.vb;
   if (record.vd !== undefined) resolved.vd = record.vd;
-  if (record.s !== undefined) resolved.s = finiteSum(base.bs, record.s, `${path}.s`);
+  // RFC 8428 §4.5.4: if only one of Base Sum or Sum is present the missing one counts as zero; with neither,
+  // the record has no sum.
+  if (record.s !== undefined || base.bs !== undefined) {
+    resolved.s = finiteSum(base.bs ?? 0, record.s ?? 0, `${path}.s`);
+  }
   if (record.ut !== undefined) resolved.ut = record.ut;
   // RFC 8428 §4.6: bver is left out of resolved records of version 10 and kept in all others.
   if (base.bver !== SENML_VERSION) resolved.bver = base.bver;
