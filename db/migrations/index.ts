@@ -9,6 +9,7 @@ import { createInstallerRecords } from './2026.12.02T07.30.00.create-installer-r
 import { alterReadingsKey } from './2026.12.02T08.00.00.alter-readings-key';
 import { createSignInSessions } from './2026.12.03T09.00.00.create-sign-in-sessions';
 import { alterRollups } from './2026.12.03T12.50.00.alter-rollups';
+import { alterGrantsEmail } from './2026.12.03T13.20.00.alter-grants-email';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
 export const migrations: Migration[] = [
@@ -22,4 +23,5 @@ export const migrations: Migration[] = [
   alterReadingsKey,
   createSignInSessions,
   alterRollups,
+  alterGrantsEmail,
 ];

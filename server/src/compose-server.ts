@@ -105,10 +105,14 @@ export async function startServer(
     publicUrl: () => publicUrl,
     logger,
   };
-  const invitations = createInvitationsService({ ...linkDeps, sessions: accounts });
+  const grantsRepository = createGrantsRepository(sequelize);
+  const invitations = createInvitationsService({
+    ...linkDeps,
+    sessions: accounts,
+    onAccountCreated: (email, userId) => grantsRepository.attachWaiting(email, userId),
+  });
   const passwordReset = createPasswordResetService({ ...linkDeps, sessions });
 
-  const grantsRepository = createGrantsRepository(sequelize);
   const systems = createSystemsService({
     repository: createSystemsRepository(sequelize, reader),
     grants: grantsRepository,

@@ -276,3 +276,48 @@ describe('stream requests', () => {
     stream.socket.close();
   });
 });
+
+describe('grants to a person', () => {
+  it('answers a grant to an address without an account like any other, and applies it once the account exists', async () => {
+    const ownerSession = await signInAs(node.baseUrl, owner.email, password);
+    const asOwner = (r: request.Test) => r.set('Authorization', `Bearer ${ownerSession.accessToken}`);
+    const systems = (await asOwner(request(node.baseUrl).get('/api/systems'))).body.systems as {
+      id: string;
+      kind: string;
+    }[];
+    const van = systems.find((s) => s.kind === 'van')!;
+    const grant = (email: string) =>
+      asOwner(request(node.baseUrl).post(`/api/systems/${van.id}/grants`)).send({
+        granteeEmail: email,
+        access: 'view',
+        expiresAt: new Date(Date.now() + 86400_000).toISOString(),
+      });
+    const newcomer = 'late.joiner@fitters.example';
+    const [known, unknown] = [await grant(admin.email), await grant(newcomer)];
+    expect([known.status, unknown.status]).toEqual([201, 201]);
+    const shape = (g: { granteeUser: object }) => Object.keys(g.granteeUser).sort();
+    expect(shape(unknown.body.grant)).toEqual(shape(known.body.grant));
+    expect(unknown.body.grant.granteeUser).toEqual({ id: '', email: newcomer, displayName: newcomer });
+
+    const adminSession = await signInAs(node.baseUrl, admin.email, password);
+    await request(node.baseUrl)
+      .post('/api/company/invitations')
+      .set('Authorization', `Bearer ${adminSession.accessToken}`)
+      .send({ email: newcomer, roles: ['support'] })
+      .expect(201);
+    let link = '';
+    await until(() => {
+      const mail = node.server.mailCatcher!.messages().find((m) => m.to.includes(newcomer));
+      link = mail?.text.match(/invitation\/([A-Za-z0-9_-]+)/)?.[1] ?? '';
+      return link !== '';
+    });
+    const accepted = await request(node.baseUrl)
+      .post('/api/auth/invitations/accept')
+      .send({ token: link, displayName: 'Late Joiner', password: 'late-joiner-secret-1' });
+    expect(accepted.status).toBe(200);
+    const seen = await request(node.baseUrl)
+      .get('/api/systems')
+      .set('Authorization', `Bearer ${accepted.body.accessToken}`);
+    expect(seen.body.systems.map((s: { id: string }) => s.id)).toContain(van.id);
+  });
+});

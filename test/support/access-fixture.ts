@@ -48,8 +48,9 @@ export async function addAccessFixture(sequelize: Sequelize) {
     revoked = false,
   ) =>
     q(
-      `INSERT INTO grants (system_id, grantee_user_id, grantee_company_id, access, granted_by, expires_at, revoked_at)
-       VALUES (:systemId, :userId, :companyId, :access, :ownerId, now() + :expires::interval, ${revoked ? 'now()' : 'NULL'}) RETURNING id`,
+      `INSERT INTO grants (system_id, grantee_user_id, grantee_email, grantee_company_id, access, granted_by, expires_at, revoked_at)
+       VALUES (:systemId, :userId, (SELECT email FROM users WHERE id = :userId), :companyId, :access, :ownerId,
+         now() + :expires::interval, ${revoked ? 'now()' : 'NULL'}) RETURNING id`,
       { systemId, userId: to.user ?? null, companyId: to.company ?? null, access, ownerId, expires },
     );
   await grant(cabin.id, { user: deskSupport }, 'configure', '7 days');

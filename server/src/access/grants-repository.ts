@@ -5,8 +5,10 @@ import type { GrantFacts } from './access-policy';
 const SELECT_GRANT = `
   SELECT g.id, g.system_id AS "systemId", s.name AS "systemName", g.access,
     CASE WHEN c.id IS NULL THEN NULL ELSE json_build_object('id', c.id, 'name', c.name) END AS "granteeCompany",
-    CASE WHEN u.id IS NULL THEN NULL
-      ELSE json_build_object('id', u.id, 'email', u.email, 'displayName', u.display_name) END AS "granteeUser",
+    -- A person is shown by the address the grant was made out to, the same whether or not it has an account
+    -- yet (a name or id would tell the granter which addresses sign in).
+    CASE WHEN g.grantee_email IS NULL THEN NULL
+      ELSE json_build_object('id', '', 'email', g.grantee_email, 'displayName', g.grantee_email) END AS "granteeUser",
     json_build_object('id', b.id, 'displayName', b.display_name) AS "grantedBy",
     (extract(epoch FROM g.created_at) * 1000)::float8 AS "createdAt",
     (extract(epoch FROM g.expires_at) * 1000)::float8 AS "expiresAt",
@@ -15,8 +17,7 @@ const SELECT_GRANT = `
   FROM grants g
   JOIN systems s ON s.id = g.system_id
   JOIN users b ON b.id = g.granted_by
-  LEFT JOIN companies c ON c.id = g.grantee_company_id
-  LEFT JOIN users u ON u.id = g.grantee_user_id`;
+  LEFT JOIN companies c ON c.id = g.grantee_company_id`;
 
 /** Data access for grants of access to systems. */
 export function createGrantsRepository(sequelize: Sequelize) {
@@ -60,16 +61,26 @@ export function createGrantsRepository(sequelize: Sequelize) {
       systemId: string;
       granteeCompanyId: string | null;
       granteeUserId: string | null;
+      granteeEmail: string | null;
       access: 'view' | 'configure';
       grantedBy: string;
       expiresAt: Date;
     }): Promise<string> {
       const [row] = await sequelize.query<{ id: string }>(
-        `INSERT INTO grants (system_id, grantee_company_id, grantee_user_id, access, granted_by, expires_at)
-         VALUES (:systemId, :granteeCompanyId, :granteeUserId, :access, :grantedBy, :expiresAt) RETURNING id`,
+        `INSERT INTO grants (system_id, grantee_company_id, grantee_user_id, grantee_email, access, granted_by, expires_at)
+         VALUES (:systemId, :granteeCompanyId, :granteeUserId, :granteeEmail, :access, :grantedBy, :expiresAt)
+         RETURNING id`,
         { replacements: grant, type: QueryTypes.SELECT },
       );
       return row.id;
+    },
+
+    /** Grants that waited for an account with this address now name the person who has it. */
+    async attachWaiting(email: string, userId: string): Promise<void> {
+      await sequelize.query(
+        `UPDATE grants SET grantee_user_id = :userId WHERE grantee_email = :email AND grantee_user_id IS NULL`,
+        { replacements: { email, userId } },
+      );
     },
 
     /** Marks a grant revoked; true when it was not revoked before. */

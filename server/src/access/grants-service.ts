@@ -42,21 +42,22 @@ export function createGrantsService(deps: {
         throw invalidInput('expiresAt', 'expiresAt must be within a year; renew the grant later');
       let granteeCompanyId: string | null = null;
       let granteeUserId: string | null = null;
+      let granteeEmail: string | null = null;
       if (request.granteeCompanyId) {
         const company = await deps.accounts.findCompany(request.granteeCompanyId);
         if (!company) throw invalidInput('granteeCompanyId', 'No such company');
         granteeCompanyId = company.id;
       } else {
-        const grantee = await deps.accounts.findByEmail(request.granteeEmail!);
-        if (!grantee)
-          throw invalidInput('granteeEmail', `No one with the e-mail ${request.granteeEmail} has an account`);
-        if (grantee.id === user.id) throw invalidInput('granteeEmail', 'You already own this system');
-        granteeUserId = grantee.id;
+        granteeEmail = request.granteeEmail!.trim().toLowerCase();
+        if (granteeEmail === user.email) throw invalidInput('granteeEmail', 'You already own this system');
+        // An address without an account gets a grant that waits for one: the answer is the same either way.
+        granteeUserId = (await deps.accounts.findByEmail(granteeEmail))?.id ?? null;
       }
       const id = await deps.repository.create({
         systemId: system.id,
         granteeCompanyId,
         granteeUserId,
+        granteeEmail,
         access: request.access,
         grantedBy: user.id,
         expiresAt: request.expiresAt,

@@ -38,6 +38,8 @@ export function createInvitationsService(deps: {
   publicUrl: () => string;
   now: () => number;
   logger: Logger;
+  /** Told of each new account, so grants made out to its address before it existed apply from now on. */
+  onAccountCreated?: (email: string, userId: string) => Promise<void>;
 }) {
   // Whether the address already signs in decides which mail goes out, never what the inviter is told.
   async function sendInvitation(email: string, companyId: string, link: string, expiresAt: Date) {
@@ -105,6 +107,7 @@ export function createInvitationsService(deps: {
         roles: record.roles,
         companyId: record.companyId,
       });
+      await deps.onAccountCreated?.(user.email, user.id);
       return deps.sessions.issue(user);
     },
   };

@@ -12,6 +12,9 @@ export function grantState(grant: Pick<Grant, 'revokedAt' | 'expiresAt'>, now: n
 /** Who a grant is for, in words. */
 export function granteeName(grant: Pick<Grant, 'granteeCompany' | 'granteeUser'>): string {
   if (grant.granteeCompany) return grant.granteeCompany.name;
-  if (grant.granteeUser) return `${grant.granteeUser.displayName} (${grant.granteeUser.email})`;
+  if (grant.granteeUser)
+    return grant.granteeUser.displayName === grant.granteeUser.email
+      ? grant.granteeUser.email
+      : `${grant.granteeUser.displayName} (${grant.granteeUser.email})`;
   return 'Unknown grantee';
 }
