@@ -10,7 +10,12 @@ import { Router, RouterLink } from '@angular/router';
 import type { InvitationPreview } from '@cellwarden/shared';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import { Auth } from '../core/auth';
-import { PASSWORD_MIN, passwordPair, passwordsMatch } from '../password-reset/password-rules';
+import {
+  PASSWORD_MAX_BYTES,
+  PASSWORD_MIN,
+  passwordPair,
+  passwordsMatch,
+} from '../password-reset/password-rules';
 import { serverErrorOf, showServerError } from '../sign-in/server-error';
 import { InvitationApi } from './invitation-api';
 import { roleLabel } from './role-label';
@@ -46,6 +51,7 @@ export class Invitation {
   readonly token = input.required<string>();
 
   protected readonly minLength = PASSWORD_MIN;
+  protected readonly maxBytes = PASSWORD_MAX_BYTES;
   protected readonly roleLabel = roleLabel;
   protected readonly preview = toSignal(
     toObservable(this.token).pipe(

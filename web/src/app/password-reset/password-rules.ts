@@ -1,8 +1,17 @@
 import { AbstractControl, FormBuilder, ValidationErrors, ValidatorFn, Validators } from '@angular/forms';
-import { MIN_PASSWORD_LENGTH } from '@cellwarden/shared';
+import { MAX_PASSWORD_BYTES, MIN_PASSWORD_LENGTH } from '@cellwarden/shared';
 
 /** The shortest password any form accepts; the same constant the server checks. */
 export const PASSWORD_MIN = MIN_PASSWORD_LENGTH;
+
+/** The longest password in UTF-8 bytes: all the server's hash reads, so none of it is silently ignored. */
+export const PASSWORD_MAX_BYTES = MAX_PASSWORD_BYTES;
+
+/** Control validator: at most PASSWORD_MAX_BYTES bytes (letters with accents or symbols take 2–4 each). */
+export const withinPasswordBytes: ValidatorFn = (control: AbstractControl): ValidationErrors | null =>
+  new TextEncoder().encode(String(control.value ?? '')).length > PASSWORD_MAX_BYTES
+    ? { tooLong: true }
+    : null;
 
 /** Group validator: `confirmation` must equal `password`; the error sits on the confirmation control. */
 export const passwordsMatch: ValidatorFn = (group: AbstractControl): ValidationErrors | null => {
@@ -20,7 +29,11 @@ export const passwordsMatch: ValidatorFn = (group: AbstractControl): ValidationE
 /** A password + confirmation pair of controls, as both the invitation and the reset forms use it. */
 export function passwordPair(fb: FormBuilder) {
   return {
-    password: fb.nonNullable.control('', [Validators.required, Validators.minLength(PASSWORD_MIN)]),
+    password: fb.nonNullable.control('', [
+      Validators.required,
+      Validators.minLength(PASSWORD_MIN),
+      withinPasswordBytes,
+    ]),
     confirmation: fb.nonNullable.control('', Validators.required),
   };
 }

@@ -46,6 +46,14 @@ describe('NewPassword', () => {
     http.expectNone('/api/auth/password-reset/complete');
   });
 
+  it('refuses a password longer than the 72 bytes the hash reads, counting accented letters as two', async () => {
+    const { loader, http } = setup();
+    const long = 'ü'.repeat(37);
+    await fill(loader, long, long);
+    expect((await errorsOf(loader, 'New password'))[0]).toContain('at most 72 bytes');
+    http.expectNone('/api/auth/password-reset/complete');
+  });
+
   it('says so when the confirmation differs', async () => {
     const { loader, http } = setup();
     await fill(loader, 'long-enough-pass', 'long-enough-typo');

@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
 import { serverErrorOf, showServerError } from '../../sign-in/server-error';
-import { PASSWORD_MIN, passwordPair, passwordsMatch } from '../password-rules';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../password-rules';
 import { ResetApi } from '../reset-api';
 
 /** Sets a new password with the token from the reset e-mail (route /password-reset/:token). */
@@ -24,6 +24,7 @@ export class NewPassword {
   readonly token = input.required<string>();
 
   protected readonly minLength = PASSWORD_MIN;
+  protected readonly maxBytes = PASSWORD_MAX_BYTES;
   protected readonly form = this.fb.nonNullable.group(passwordPair(this.fb), { validators: passwordsMatch });
   protected readonly done = signal(false);
   protected readonly submitting = signal(false);
