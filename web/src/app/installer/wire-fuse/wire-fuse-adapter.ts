@@ -1,7 +1,10 @@
 import {
   AwgSize,
+  Chemistry,
+  ConductorConstruction,
   InstallerInputError,
   InsulationRatingC,
+  ProtectionRules,
   SystemVoltage,
   WireFuseCheckResult,
   checkWireAndFuse,
@@ -14,8 +17,19 @@ export interface WireFuseFormValue {
   systemVoltage: SystemVoltage;
   allowedDropPercent: 3 | 10;
   insulationRatingC: InsulationRatingC;
+  construction: ConductorConstruction;
+  conductorTemperatureC: number | null;
+  rules: ProtectionRules;
+  ambientC: number | null;
+  engineSpace: boolean;
+  bundledConductors: number | null;
+  sheathed: boolean;
+  fuseDistanceM: number | null;
+  bankChemistry: Chemistry | '';
+  bankCapacityAh: number | null;
   proposedGauge: AwgSize | '';
   proposedFuseA: number | null;
+  fuseInterruptingRatingA: number | null;
 }
 
 /** The check's answer, or the refused field and why. */
@@ -31,8 +45,21 @@ export function runWireFuseCheck(value: WireFuseFormValue): WireFuseOutcome {
       systemVoltage: value.systemVoltage,
       allowedDropPercent: value.allowedDropPercent,
       insulationRatingC: value.insulationRatingC,
+      construction: value.construction,
+      conductorTemperatureC: value.conductorTemperatureC ?? NaN,
+      rules: value.rules,
+      ambientC: value.ambientC ?? NaN,
+      engineSpace: value.engineSpace,
+      bundledConductors: value.bundledConductors ?? NaN,
+      sheathed: value.sheathed,
+      fuseDistanceM: value.fuseDistanceM ?? undefined,
+      bank:
+        value.bankChemistry === ''
+          ? undefined
+          : { chemistry: value.bankChemistry, capacityAh: value.bankCapacityAh ?? NaN },
       proposedGauge: value.proposedGauge === '' ? undefined : value.proposedGauge,
       proposedFuseA: value.proposedFuseA ?? undefined,
+      fuseInterruptingRatingA: value.fuseInterruptingRatingA ?? undefined,
     });
     return { kind: 'result', result };
   } catch (error) {
