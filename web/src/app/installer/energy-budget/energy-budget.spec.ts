@@ -51,10 +51,14 @@ describe('EnergyBudgetEditor', () => {
     const shown = await figures();
     // By hand: fridge 45 W × 24 h × 40 % = 432 Wh; solar 200 W × 4 h × 0.8 (20 % derate, common practice) = 640 Wh.
     expect(shown['Energy in']).toBe('640 Wh/day');
+    // LiFePO4 charge efficiency 99 % (profile, from memory): 633.6 Wh stored
+    expect(shown['Stored after charge losses']).toBe('634 Wh/day (99 %)');
     expect(shown['Energy out']).toBe('432 Wh/day');
-    expect(shown['Balance']).toBe('+208 Wh/day (17.3 Ah)');
-    // Suggested battery: 432 Wh × 2 days / (12 V × 0.9) = 80 Ah.
-    expect(shown['Suggested battery']).toBe('80 Ah');
+    // 633.6 − 432 = 201.6 Wh at 12.8 V (LiFePO4 nominal, 4 × 3.2 V) = 15.7 Ah
+    expect(shown['Balance']).toMatch(/^\+202 Wh\/day \(15\.[78] Ah\)$/);
+    // Suggested battery: 432 Wh × 2 days / (12.8 V × 0.9) = 75 Ah.
+    expect(shown['Suggested battery']).toBe('75 Ah');
+    expect(shown['Inverter standby']).toBe('0 Wh/day');
   });
 
   it('adds a load row and updates the balance', async () => {
@@ -68,10 +72,54 @@ describe('EnergyBudgetEditor', () => {
     const shown = await figures();
     // By hand: 1800 W × 0.5 h / 0.90 inverter efficiency = 1000 Wh; + 432 Wh fridge = 1432 Wh out.
     expect(shown['Energy out']).toBe('1,432 Wh/day');
-    expect(shown['Balance']).toMatch(/^-792 Wh\/day/);
+    // 633.6 Wh stored − 1432 Wh = −798.4 Wh
+    expect(shown['Balance']).toMatch(/^-798 Wh\/day/);
     // P / (V × η) = 2000 W / (12 V × 0.9) = 185.2 A, above the 100 A BMS rating.
     expect(shown['Inverter draw at rating vs BMS']).toBe('185.2 A of 100 A');
     expect(await summary()).toContain('The system is not matched');
+  });
+
+  it('shows the inverter standby and its surge against the BMS peak rating', async () => {
+    const { inputs, figures, summary } = await setup();
+    await (await inputs('inverterRatedW'))[0].setValue('2000');
+    await (await inputs('inverterStandbyW'))[0].setValue('10');
+    await (await inputs('inverterSurgeW'))[0].setValue('4000');
+    await (await inputs('bmsContinuousA'))[0].setValue('200');
+    await (await inputs('bmsPeakA'))[0].setValue('300');
+    const shown = await figures();
+    // 10 W × 24 h = 240 Wh a day; surge 4000 W / (12 V × 0.9) = 370.4 A > 300 A peak
+    expect(shown['Inverter standby']).toBe('240 Wh/day');
+    expect(shown['Energy out']).toBe('672 Wh/day');
+    expect(shown['Inverter surge vs BMS peak']).toBe('370.4 A of 300 A');
+    expect(await summary()).toContain('above the BMS peak rating of 300 A');
+  });
+
+  it('opens a wire and fuse check prefilled with the inverter feeder current', async () => {
+    const { fixture, loader, inputs } = await setup();
+    await (await inputs('inverterRatedW'))[0].setValue('2000');
+    await (await inputs('bmsContinuousA'))[0].setValue('200');
+    await (
+      await loader.getHarness(MatButtonHarness.with({ text: /Check wire & fuse\s*for Inverter feeder/ }))
+    ).click();
+    await fixture.whenStable();
+    const check = (fixture.nativeElement as HTMLElement).querySelector(
+      '[aria-label="Wire and fuse check for Inverter feeder"]',
+    );
+    // P / (V × η) = 2000 / (12 × 0.9) = 185.19 A, rounded up to a tenth
+    expect(check?.querySelector<HTMLInputElement>('[formControlName="currentA"]')?.value).toBe('185.2');
+    expect(check?.textContent).toContain('Checking the Inverter feeder');
+    const lengths = await loader.getAllHarnesses(
+      MatInputHarness.with({ selector: '[formControlName="oneWayLengthM"]' }),
+    );
+    await lengths[0].setValue('1.5');
+    await fixture.whenStable();
+    const result = check?.querySelector('.result')?.textContent?.replace(/\s+/g, ' ') ?? '';
+    // 125 % × 185.2 A = 231.5 A → 1 AWG (245 A, 33 CFR 183.425 Table 5, 105 °C); fuse 250 A, allowed up to
+    // 150 % × 245 A = 367.5 A (33 CFR 183.455(c)(1))
+    expect(result).toMatch(
+      /Recommended conductor and fuse 1 AWG[\s\S]*Fuse 250 A \(range 231\.5 to 367\.5 A\)/,
+    );
+    expect(result).toContain('This wire and fuse pair passes');
   });
 
   it('removes a source row', async () => {
@@ -97,7 +145,7 @@ describe('EnergyBudgetEditor', () => {
     await fixture.whenStable();
     const canvas: HTMLCanvasElement = fixture.nativeElement.querySelector('canvas');
     expect(canvas.getAttribute('aria-label')).toBe(
-      'Energy in 640 Wh a day, energy out 432 Wh a day: 208 Wh to spare.',
+      'Energy stored 634 Wh a day, energy out 432 Wh a day: 202 Wh to spare.',
     );
     expect(fixture.nativeElement.querySelector('table.cw-visually-hidden').textContent).toContain('640 Wh');
   });

@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormArray, FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -8,12 +8,20 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { InstallerInputError, SYSTEM_VOLTAGES, SystemVoltage, energyBudget } from '@cellwarden/shared';
+import {
+  BudgetCircuit,
+  Chemistry,
+  InstallerInputError,
+  SYSTEM_VOLTAGES,
+  SystemVoltage,
+  energyBudget,
+} from '@cellwarden/shared';
 import type { ChartConfiguration } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../../core/chart-setup';
 import { map, startWith } from 'rxjs';
 import { Findings } from '../findings/findings';
+import { WireFuse, WireFusePrefill } from '../wire-fuse/wire-fuse';
 import { budgetChartSummary, toBudgetChart } from './to-budget-chart';
 import { BudgetEditorValue, LoadRow, SourceRow, toBudgetInput } from './to-budget-input';
 
@@ -38,6 +46,7 @@ const num = (value: number, min: number, max: number) => [
     DecimalPipe,
     BaseChartDirective,
     Findings,
+    WireFuse,
   ],
   templateUrl: './energy-budget.html',
   styleUrl: './energy-budget.scss',
@@ -46,6 +55,8 @@ export class EnergyBudgetEditor {
   private readonly fb = inject(FormBuilder);
 
   protected readonly voltages = SYSTEM_VOLTAGES;
+  /** The circuit whose wire and fuse check is open below the budget. */
+  protected readonly checkedCircuit = signal<WireFusePrefill | undefined>(undefined);
   protected readonly form = this.fb.nonNullable.group({
     loads: this.fb.array([
       this.loadGroup({ name: 'Fridge', watts: 45, ac: false, hoursPerDay: 24, dutyPercent: 40 }),
@@ -59,6 +70,11 @@ export class EnergyBudgetEditor {
       usablePercent: num(90, 1, 100),
       daysOfAutonomy: num(2, 0.5, 30),
       batteryCapacityAh: [null as number | null, [Validators.min(1), Validators.max(20000)]],
+      chemistry: ['lifepo4' as Chemistry],
+      inverterStandbyW: num(0, 0, 1000),
+      inverterStandbyHoursPerDay: num(24, 0, 24),
+      inverterSurgeW: [null as number | null, [Validators.min(0), Validators.max(60000)]],
+      bmsPeakA: [null as number | null, [Validators.min(1), Validators.max(10000)]],
     }),
   });
   private readonly value = toSignal(
@@ -84,11 +100,11 @@ export class EnergyBudgetEditor {
   });
   protected readonly chartData = computed(() => {
     const budget = this.budget();
-    return budget ? toBudgetChart(budget.whInPerDay, budget.whOutPerDay) : null;
+    return budget ? toBudgetChart(budget.whStoredPerDay, budget.whOutPerDay) : null;
   });
   protected readonly chartSummary = computed(() => {
     const budget = this.budget();
-    return budget ? budgetChartSummary(budget.whInPerDay, budget.whOutPerDay) : '';
+    return budget ? budgetChartSummary(budget.whStoredPerDay, budget.whOutPerDay) : '';
   });
   protected readonly chartOptions: ChartConfiguration<'bar'>['options'] = {
     responsive: true,
@@ -103,6 +119,19 @@ export class EnergyBudgetEditor {
 
   protected get sources(): FormArray {
     return this.form.controls.sources;
+  }
+
+  /** Opens the wire and fuse check for one of the budget's circuits, prefilled with its DC current. */
+  protected checkCircuit(circuit: BudgetCircuit): void {
+    const system = this.form.controls.system.getRawValue();
+    this.checkedCircuit.set({
+      circuit: circuit.name,
+      currentA: circuit.currentA,
+      systemVoltage: system.nominalVoltage,
+      ...(system.batteryCapacityAh
+        ? { bank: { chemistry: system.chemistry, capacityAh: system.batteryCapacityAh } }
+        : {}),
+    });
   }
 
   protected addLoad(): void {

@@ -19,6 +19,11 @@ const value: BudgetEditorValue = {
     usablePercent: 90,
     daysOfAutonomy: 2,
     batteryCapacityAh: null,
+    chemistry: 'agm',
+    inverterStandbyW: 8,
+    inverterStandbyHoursPerDay: 10,
+    inverterSurgeW: null,
+    bmsPeakA: 250,
   },
 };
 
@@ -34,15 +39,22 @@ describe('toBudgetInput', () => {
       inverterEfficiency: 0.9,
       usableFraction: 0.9,
       batteryCapacityAh: undefined,
+      chemistry: 'agm',
+      inverterStandbyW: 8,
+      inverterSurgeW: undefined,
+      bmsPeakA: 250,
     });
   });
 
   it('gives the shared budget numbers a person can check by hand', () => {
     const budget = energyBudget(toBudgetInput(value));
-    // By hand: fridge 45 W × 24 h × 0.4 = 432 Wh; laptop 60 W × 3 h / 0.9 (inverter) = 200 Wh → 632 Wh out.
-    expect(budget.whOutPerDay).toBeCloseTo(632, 6);
-    // Solar 200 W × 4 h × (1 − 0.20 derate, common practice) = 640 Wh; DC-DC 20 A × 1 h × 12 V = 240 Wh.
+    // By hand: fridge 45 W × 24 h × 0.4 = 432 Wh; laptop 60 W × 3 h / 0.9 (inverter) = 200 Wh; standby
+    // 8 W × 10 h = 80 Wh → 712 Wh out.
+    expect(budget.whOutPerDay).toBeCloseTo(712, 6);
+    // Solar 200 W × 4 h × (1 − 0.20 derate, common practice) = 640 Wh; DC-DC 20 A × 1 h × 12 V (AGM nominal,
+    // 6 × 2.0 V) = 240 Wh; stored × 0.90 AGM charge efficiency (profile, from memory) = 792 Wh.
     expect(budget.whInPerDay).toBeCloseTo(880, 6);
+    expect(budget.whStoredPerDay).toBeCloseTo(792, 6);
   });
 });
 
@@ -53,7 +65,7 @@ describe('budget chart', () => {
 
   it('summarises a deficit in words for screen readers', () => {
     expect(budgetChartSummary(640, 676.4)).toBe(
-      'Energy in 640 Wh a day, energy out 676 Wh a day: 36 Wh short.',
+      'Energy stored 640 Wh a day, energy out 676 Wh a day: 36 Wh short.',
     );
   });
 });

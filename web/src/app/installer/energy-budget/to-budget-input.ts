@@ -1,4 +1,10 @@
-import type { BudgetLoad, BudgetSource, EnergyBudgetInput, SystemVoltage } from '@cellwarden/shared';
+import type {
+  BudgetLoad,
+  BudgetSource,
+  Chemistry,
+  EnergyBudgetInput,
+  SystemVoltage,
+} from '@cellwarden/shared';
 
 /** One load row as the editor holds it (percentages, as people type them). */
 export interface LoadRow {
@@ -25,6 +31,11 @@ export interface BudgetSystemRow {
   usablePercent: number;
   daysOfAutonomy: number;
   batteryCapacityAh: number | null;
+  chemistry: Chemistry;
+  inverterStandbyW: number;
+  inverterStandbyHoursPerDay: number;
+  inverterSurgeW: number | null;
+  bmsPeakA: number | null;
 }
 
 /** The whole editor's value. */
@@ -60,6 +71,11 @@ export function toBudgetInput(value: BudgetEditorValue): EnergyBudgetInput {
       usableFraction: system.usablePercent / 100,
       daysOfAutonomy: system.daysOfAutonomy,
       batteryCapacityAh: system.batteryCapacityAh ?? undefined,
+      chemistry: system.chemistry,
+      inverterStandbyW: system.inverterStandbyW,
+      inverterStandbyHoursPerDay: system.inverterStandbyHoursPerDay,
+      inverterSurgeW: system.inverterSurgeW ?? undefined,
+      bmsPeakA: system.bmsPeakA ?? undefined,
     },
   };
 }
