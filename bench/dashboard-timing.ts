@@ -37,7 +37,7 @@ export async function timeDashboard(options: {
   const device = await connectAsync(options.mqttUrl, {
     username: monitor.deviceId,
     password: monitor.secret,
-    clientId: `cw-bench-dashboard-${monitor.deviceId}`,
+    clientId: monitor.deviceId,
   });
   let k = 0;
   const start = Date.now() - 120_000;

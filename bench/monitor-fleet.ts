@@ -27,7 +27,7 @@ export async function connectFleet(
     const client = connect(url, {
       username: m.deviceId,
       password: m.secret,
-      clientId: `cw-bench-${m.deviceId}`,
+      clientId: m.deviceId, // the broker takes only the device's own id as client id
       clean: false,
       // A real monitor backs off after a lost connection; spread so a restart is not met by one wall of CONNECTs.
       reconnectPeriod: 1000 + Math.floor(Math.random() * 1000),

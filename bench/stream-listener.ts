@@ -19,9 +19,8 @@ export async function listenToStream(
     await new Promise<void>((resolve, reject) => {
       socket.once('error', reject);
       socket.once('open', () => {
-        // In parts of 100: a subscribe message is bounded in size.
-        for (let j = 0; j < ids.length; j += 100)
-          socket.send(JSON.stringify({ type: 'subscribe', systemIds: ids.slice(j, j + 100) }));
+        // One subscribe per socket: a subscribe replaces the socket's subscriptions.
+        socket.send(JSON.stringify({ type: 'subscribe', systemIds: ids }));
       });
       socket.on('message', (data) => {
         const message = JSON.parse(String(data)) as StreamMessage;
@@ -29,7 +28,7 @@ export async function listenToStream(
         if (message.type === 'reading')
           received.set(`${message.systemId}|${message.reading.measuredAt}`, performance.now());
       });
-      setTimeout(() => reject(new Error('stream subscribe not answered within 30 s')), 30_000).unref();
+      setTimeout(() => reject(new Error('stream subscribe not answered within 60 s')), 60_000).unref();
     });
   }
   return { close: () => sockets.forEach((s) => s.close()) };

@@ -69,9 +69,6 @@ const NEW_ROWS = `incoming AS (
   FROM corrected
 )`;
 
-const lastBy = (column: string, filter: string) =>
-  `(array_agg(${column} ORDER BY measured_at DESC, device_id DESC) FILTER (WHERE ${filter}))[1]`;
-
 const ROLLUP_COLUMNS = [
   'system_id',
   'bucket_start',
@@ -90,22 +87,48 @@ const ROLLUP_COLUMNS = [
   'wh_out',
 ];
 
-/** The change to each bucket of `unit` ('minute' or 'hour'), from the batch's contributions. */
-const bucketChanges = (unit: 'minute' | 'hour') => `
-  SELECT system_id, date_trunc('${unit}', measured_at) AS bucket_start, sum(new_reading)::int AS reading_count,
+// Each contribution's place in its minute: the newest new reading, and the newest one with a state of charge,
+// come first (two window sorts, instead of one ordered aggregate per "last" column).
+const RANKED = `ranked AS (
+  SELECT c.*, date_trunc('minute', measured_at) AS minute,
+    row_number() OVER (PARTITION BY system_id, date_trunc('minute', measured_at)
+      ORDER BY new_reading DESC, measured_at DESC, device_id DESC) AS recency,
+    row_number() OVER (PARTITION BY system_id, date_trunc('minute', measured_at)
+      ORDER BY state_of_charge IS NULL, measured_at DESC, device_id DESC) AS soc_recency
+  FROM contributions c
+)`;
+
+/** The change to each minute, from the batch's contributions. */
+const MINUTE_CHANGES = `
+  SELECT system_id, minute AS bucket_start, sum(new_reading)::int AS reading_count,
     ${METRICS.map(
       (m) => `min(${m}) AS ${m}_min, max(${m}) AS ${m}_max, coalesce(sum(${m}), 0) AS ${m}_sum,
-    ${lastBy(m, 'new_reading = 1')} AS ${m}_last`,
+    max(${m}) FILTER (WHERE recency = 1 AND new_reading = 1) AS ${m}_last`,
     ).join(',\n    ')},
     min(state_of_charge) AS soc_min, max(state_of_charge) AS soc_max, sum(state_of_charge) AS soc_sum,
-    count(state_of_charge)::int AS soc_count, ${lastBy('state_of_charge', 'state_of_charge IS NOT NULL')} AS soc_last,
+    count(state_of_charge)::int AS soc_count, max(state_of_charge) FILTER (WHERE soc_recency = 1) AS soc_last,
     max(measured_at) FILTER (WHERE state_of_charge IS NOT NULL) AS soc_last_at,
     max(measured_at) FILTER (WHERE new_reading = 1) AS last_measured_at,
     coalesce(sum(greatest(energy_current, 0) * hours), 0) AS ah_in,
     coalesce(sum(greatest(-energy_current, 0) * hours), 0) AS ah_out,
     coalesce(sum(greatest(energy_current, 0) * energy_voltage * hours), 0) AS wh_in,
     coalesce(sum(greatest(-energy_current, 0) * energy_voltage * hours), 0) AS wh_out
-  FROM contributions GROUP BY 1, 2`;
+  FROM ranked GROUP BY system_id, minute`;
+
+const lastOf = (column: string, at: string) => `(array_agg(${column} ORDER BY ${at} DESC NULLS LAST))[1]`;
+
+/** The change to each hour, combined from the changes to its minutes (a few rows, not every reading). */
+const HOUR_CHANGES = `
+  SELECT system_id, date_trunc('hour', bucket_start) AS bucket_start, sum(reading_count)::int AS reading_count,
+    ${METRICS.map(
+      (m) => `min(${m}_min) AS ${m}_min, max(${m}_max) AS ${m}_max, sum(${m}_sum) AS ${m}_sum,
+    ${lastOf(`${m}_last`, 'last_measured_at')} AS ${m}_last`,
+    ).join(',\n    ')},
+    min(soc_min) AS soc_min, max(soc_max) AS soc_max, sum(soc_sum) AS soc_sum, sum(soc_count)::int AS soc_count,
+    ${lastOf('soc_last', 'soc_last_at')} AS soc_last, max(soc_last_at) AS soc_last_at,
+    max(last_measured_at) AS last_measured_at, sum(ah_in) AS ah_in, sum(ah_out) AS ah_out,
+    sum(wh_in) AS wh_in, sum(wh_out) AS wh_out
+  FROM minute_changes GROUP BY 1, 2`;
 
 const newer = (table: string) => `excluded.last_measured_at > ${table}.last_measured_at`;
 const newerSoc = (table: string) =>
@@ -156,9 +179,9 @@ ${changes}_new AS (
  * earliest time less the gap cap, its latest plus it), so the planner reads only the months they can lie in.
  */
 export const INSERT_READINGS_WITH_ROLLUPS = `
-WITH ${NEW_ROWS},
-minute_changes AS (${bucketChanges('minute')}),
-hour_changes AS (${bucketChanges('hour')}),
+WITH ${NEW_ROWS}, ${RANKED},
+minute_changes AS (${MINUTE_CHANGES}),
+hour_changes AS (${HOUR_CHANGES}),
 ${applyTo('rollups_1m', 'minute_changes')},
 ${applyTo('rollups_1h', 'hour_changes')}
 SELECT system_id AS "systemId", measured_at AS "measuredAt", device_id AS "deviceId" FROM stored`;
