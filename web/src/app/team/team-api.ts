@@ -28,4 +28,14 @@ export class TeamApi {
       .post<Invitation | { invitation: Invitation }>('/api/company/invitations', request)
       .pipe(map((body) => ('invitation' in body ? body.invitation : body)));
   }
+
+  /** Takes a member out of the company; their sessions end at once. */
+  removeMember(userId: string): Observable<void> {
+    return this.http.delete<void>(`/api/company/members/${encodeURIComponent(userId)}`);
+  }
+
+  /** Withdraws an open invitation: its link stops working. */
+  withdrawInvitation(invitationId: string): Observable<void> {
+    return this.http.delete<void>(`/api/company/invitations/${encodeURIComponent(invitationId)}`);
+  }
 }
