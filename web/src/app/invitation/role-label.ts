@@ -12,9 +12,6 @@ export function roleLabel(role: Role): string {
   return LABELS[role];
 }
 
-/** Every role, in the order forms offer them. */
-export const ALL_ROLES: readonly Role[] = ['owner', 'installer', 'support', 'admin'];
-
 /** The roles a company admin gives when inviting: `owner` belongs to a person's own systems, not a company. */
 export const COMPANY_ROLES: readonly Role[] = ['installer', 'support', 'admin'];
 
