@@ -16,6 +16,9 @@ export const SHEATHED_FUSE_DISTANCE_M = 40 * 0.0254;
 export const FUSE_PLACEMENT_RULE =
   '33 CFR 183.455(b): at the battery; within 7 in (178 mm) along the conductor if that is impractical; within 40 in (1.02 m) if the conductor is sheathed or enclosed all the way';
 
+// Entered distances are decimals of a metre; 7 in is 0.1778 m exactly, which binary floating point misses by 1e-17.
+const TOLERANCE_M = 1e-9;
+
 /** One finding on the fuse's distance from the battery along the conductor. */
 export function fusePlacementFinding(distanceM: number | undefined, sheathed: boolean): InstallerFinding {
   if (distanceM === undefined) {
@@ -34,14 +37,14 @@ export function fusePlacementFinding(distanceM: number | undefined, sheathed: bo
       message: `fuse at the battery (33 CFR 183.455(b))`,
     };
   }
-  if (distanceM <= UNSHEATHED_FUSE_DISTANCE_M) {
+  if (distanceM <= UNSHEATHED_FUSE_DISTANCE_M + TOLERANCE_M) {
     return {
       severity: 'info',
       code: 'fuse-placement-ok',
       message: `fuse ${at}, within 178 mm (7 in) (33 CFR 183.455(b)(1))`,
     };
   }
-  if (distanceM <= SHEATHED_FUSE_DISTANCE_M && sheathed) {
+  if (distanceM <= SHEATHED_FUSE_DISTANCE_M + TOLERANCE_M && sheathed) {
     return {
       severity: 'info',
       code: 'fuse-placement-ok',
