@@ -1,7 +1,7 @@
 // The two rules that size a DC conductor: the voltage it may lose, and the current it may carry.
 import { conductorAmpacity, InsulationRatingC } from './conductor-ampacity';
 import { ConductorConstruction, conductorResistancePerMetre } from './conductor-resistance';
-import { CONTINUOUS_LOAD_FACTOR } from './fuse-ratings';
+import { carries, CONTINUOUS_LOAD_FACTOR } from './fuse-ratings';
 import { AWG_SIZES, AwgSize } from './wire-gauge';
 
 /** Voltage lost along a circuit, in volts and as a percentage of the nominal voltage. */
@@ -53,7 +53,7 @@ export function minimumGaugeByAmpacity(
   insulationRatingC: InsulationRatingC,
   derating = 1,
 ): AwgSize | undefined {
-  return AWG_SIZES.find(
-    (g) => conductorAmpacity(g, insulationRatingC) * derating >= currentA * CONTINUOUS_LOAD_FACTOR,
+  return AWG_SIZES.find((g) =>
+    carries(conductorAmpacity(g, insulationRatingC) * derating, currentA * CONTINUOUS_LOAD_FACTOR),
   );
 }

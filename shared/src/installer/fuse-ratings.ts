@@ -18,6 +18,11 @@ export const NEC_STANDARD_RATINGS_A: readonly number[] = [
 /** Margin of a fuse over the continuous current: 125 % (NEC 210.20(A) continuous-load rule; common practice). */
 export const CONTINUOUS_LOAD_FACTOR = 1.25;
 
+/** Whether an ampacity carries a needed current, forgiving the last bit of floating point (210 A × 0.6 = 126 A). */
+export function carries(ampacityA: number, neededA: number): boolean {
+  return ampacityA >= neededA * (1 - 1e-12);
+}
+
 /** Which published rules set the largest fuse a conductor may have. */
 export const PROTECTION_RULES = ['marine', 'nec'] as const;
 
@@ -96,10 +101,9 @@ export function fuseRange(
 ): FuseRange {
   const minimumA = continuousCurrentA * CONTINUOUS_LOAD_FACTOR;
   // A conductor thinner than the load's margin is protected by nothing that carries the load.
-  const { maximumA, rule } =
-    conductorAmpacityA < minimumA
-      ? { maximumA: conductorAmpacityA, rule: "not above the conductor's ampacity" }
-      : maximumFuseRating(conductorAmpacityA, options.rules ?? 'nec', options.systemVoltage ?? 12);
+  const { maximumA, rule } = !carries(conductorAmpacityA, minimumA)
+    ? { maximumA: conductorAmpacityA, rule: "not above the conductor's ampacity" }
+    : maximumFuseRating(conductorAmpacityA, options.rules ?? 'nec', options.systemVoltage ?? 12);
   const standardRatingsA = COMMON_DC_FUSE_RATINGS_A.filter((r) => r >= minimumA && r <= maximumA);
   const recommendedA = standardRatingsA[0];
   return {

@@ -1,6 +1,6 @@
 // The findings of a wire and fuse check, each quoting the numbers and the rule so the installer sees why.
 import type { DeratingFactor } from './conductor-derating';
-import { CONTINUOUS_LOAD_FACTOR, COMMON_DC_FUSE_RATINGS_A, FuseRange } from './fuse-ratings';
+import { carries, CONTINUOUS_LOAD_FACTOR, COMMON_DC_FUSE_RATINGS_A, FuseRange } from './fuse-ratings';
 import { formatAmount, InstallerFinding } from './installer-finding';
 import { VoltageDrop, voltageDropFor } from './conductor-sizing';
 import type { ResolvedWireFuseInput } from './wire-fuse-input';
@@ -92,7 +92,7 @@ export function gaugeFindings(
     });
   }
   const needed = v.currentA * CONTINUOUS_LOAD_FACTOR;
-  if (ampacityA < needed) {
+  if (!carries(ampacityA, needed)) {
     const derated = derating < 1 ? ' after derating' : '';
     findings.push({
       severity: 'error',
