@@ -28,9 +28,13 @@ function listFiles(root: string, folder = root): string[] {
   });
 }
 
+// Brotli quality 6 compresses the whole dashboard (1.6 MB) in under 0.1 s of CPU and comes within 10 % of
+// quality 11, which takes 5 s: on a 2-vCPU node that would compete with a reconnect storm after every restart.
+const BROTLI_QUALITY = 6;
+
 /**
- * Compresses every text file of the built dashboard once, in the background (brotli at its best level and
- * gzip for older clients): the bundles never change while the server runs, so no request pays for it.
+ * Compresses every text file of the built dashboard once, in the background (brotli, and gzip for older
+ * clients): the bundles never change while the server runs, so no request pays for it.
  */
 function precompress(root: string): { encoded: Map<string, Encoded>; ready: Promise<void> } {
   const encoded = new Map<string, Encoded>();
@@ -42,7 +46,9 @@ function precompress(root: string): { encoded: Map<string, Encoded>; ready: Prom
     encoded.set(url, entry);
     const body = readFileSync(path);
     work.push(
-      brotli(body, { params: { [constants.BROTLI_PARAM_QUALITY]: 11 } }).then((b) => (entry.br = b)),
+      brotli(body, { params: { [constants.BROTLI_PARAM_QUALITY]: BROTLI_QUALITY } }).then(
+        (b) => (entry.br = b),
+      ),
       gzipAsync(body, { level: 9 }).then((g) => (entry.gzip = g)),
     );
   }
