@@ -25,19 +25,23 @@ export function createReadingsService(deps: {
       if (to.getTime() - from.getTime() > MAX_RANGE_MS)
         throw invalidInput('from', 'range must be at most 400 days');
       const bucketMs = Math.ceil((to.getTime() - from.getTime()) / POINT_BUDGET);
-      // The points are read while the access policy decides (its lookups would otherwise come first), and the
-      // view is recorded while the points are still being read. Nothing read is answered unless access is
-      // granted; an id that is not a uuid goes to the policy alone, which answers 404.
+      // The points are read while the access policy decides (its lookups would otherwise come first); nothing
+      // read is answered unless access is granted, and an id that is not a uuid goes to the policy alone (404).
       const reading = isUuid(systemId)
         ? deps.repository.listDownsampled(systemId, from, to, bucketMs, POINT_BUDGET)
         : undefined;
       reading?.catch(() => undefined); // settled below, or dropped when access is refused
       const system = await deps.systems.getFor(user, systemId);
-      const [points] = await Promise.all([
-        reading ?? deps.repository.listDownsampled(system.id, from, to, bucketMs, POINT_BUDGET),
-        // Recording never throws: a failed audit insert is logged and cannot lose the answer.
-        deps.audit.record(system.id, user, 'readings.viewed', `${from.toISOString()} – ${to.toISOString()}`),
-      ]);
+      // The view is recorded as the answer goes out, not before it: recording never throws (a failed insert is
+      // logged), so waiting for its commit would only delay the answer.
+      void deps.audit.record(
+        system.id,
+        user,
+        'readings.viewed',
+        `${from.toISOString()} – ${to.toISOString()}`,
+      );
+      const points = await (reading ??
+        deps.repository.listDownsampled(system.id, from, to, bucketMs, POINT_BUDGET));
       return { resolution: bucketMs <= 1000 ? 'raw' : `${Math.round(bucketMs / 1000)}s`, points };
     },
   };
