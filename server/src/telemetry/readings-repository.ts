@@ -15,7 +15,7 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
 
   async function ensurePartitions(rows: readonly ReadingRow[]): Promise<void> {
     for (const row of rows) {
-      // Months since 1970 (UTC): cheaper per reading than formatting the date.
+      // Year and month (UTC) as one number: cheaper per reading than formatting the date.
       const at = new Date(row.reading.measuredAt);
       const month = at.getUTCFullYear() * 12 + at.getUTCMonth();
       if (knownMonths.has(month)) continue;
