@@ -1,18 +1,26 @@
 import type { AlertEvent } from '@cellwarden/shared';
 import type { ChartOptions } from 'chart.js';
+import { formatInstant } from '../core/date-time';
 import type { TemperatureUnit } from '../core/temperature-unit';
+import { timeTickLabel } from './time-axis';
 import type { TimeRange } from './time-range';
 
 /** Band colours for alert spans: translucent so the lines stay readable. */
 export const SPAN_COLORS = { warning: 'rgba(224, 138, 30, 0.18)', critical: 'rgba(206, 52, 52, 0.22)' };
 
-/** Chart options for a history range: fixed time axis, one y axis per quantity, alert bands, drag to zoom. */
+/**
+ * Chart options for a history range: fixed time axis labelled in the viewer's locale, one y axis per quantity
+ * (shown while its series is), alert bands, drag to zoom. The legend is the page's own series switches.
+ */
 export function historyChartOptions(
   range: TimeRange,
   alerts: readonly AlertEvent[],
   unit: TemperatureUnit,
+  locale: string,
   onSelect: (range: TimeRange) => void,
 ): ChartOptions<'line'> {
+  const span = range.to - range.from;
+  const side = { type: 'linear' as const, display: 'auto' as const, grid: { drawOnChartArea: false } };
   return {
     animation: false,
     maintainAspectRatio: false,
@@ -22,7 +30,12 @@ export function historyChartOptions(
     events: ['mousedown', 'mouseup', 'mousemove', 'mouseout', 'touchstart', 'touchmove', 'click'],
     interaction: { mode: 'nearest', axis: 'x', intersect: false },
     plugins: {
-      decimation: { enabled: true, algorithm: 'lttb', samples: 800 },
+      // chart.js's canvas legend toggles on both mouseup and click (both are listened to, for the drag) and
+      // cannot be reached by keyboard; the series switches above the chart replace it.
+      legend: { display: false },
+      tooltip: {
+        callbacks: { title: (items) => formatInstant(items[0]?.parsed.x ?? null, 'dateTime', locale) },
+      },
       cwAlertSpans: {
         spans: alerts.map((a) => ({ startedAt: a.startedAt, endedAt: a.endedAt, severity: a.severity })),
         rangeEnd: range.to,
@@ -31,29 +44,25 @@ export function historyChartOptions(
       cwDragZoom: { onSelect, color: 'rgba(91, 110, 225, 0.2)' },
     },
     scales: {
-      x: { type: 'time', min: range.from, max: range.to },
-      voltage: { type: 'linear', position: 'left', title: { display: true, text: 'V' } },
-      current: {
-        type: 'linear',
-        position: 'right',
-        title: { display: true, text: 'A' },
-        grid: { drawOnChartArea: false },
+      x: {
+        type: 'time',
+        min: range.from,
+        max: range.to,
+        ticks: {
+          maxRotation: 0,
+          callback: (value, index, ticks) =>
+            timeTickLabel(Number(value), index > 0 ? ticks[index - 1].value : null, span, locale),
+        },
       },
-      soc: {
+      voltage: {
         type: 'linear',
-        position: 'right',
-        min: 0,
-        max: 100,
-        title: { display: true, text: '%' },
-        grid: { drawOnChartArea: false },
-      },
-      temperature: {
-        type: 'linear',
-        position: 'left',
         display: 'auto',
-        title: { display: true, text: `°${unit}` },
-        grid: { drawOnChartArea: false },
+        position: 'left',
+        title: { display: true, text: 'V' },
       },
+      current: { ...side, position: 'right', title: { display: true, text: 'A' } },
+      soc: { ...side, position: 'right', min: 0, max: 100, title: { display: true, text: '%' } },
+      temperature: { ...side, position: 'left', title: { display: true, text: `°${unit}` } },
     },
   };
 }

@@ -27,12 +27,30 @@ export function historyAlerts(api: AlertsApi, id: string, range: TimeRange): Obs
   return asLoad(api.alerts(id, { from: new Date(range.from), to: new Date(range.to) }));
 }
 
-/** Words for the server's downsampling resolution ("raw", "1m", "1h", "1d"). */
+/** Words for the server's downsampling resolution ("raw", "300s", "5m", "1h"): "one point per 4 min". */
 export function resolutionText(resolution: string): string {
-  const match = /^(\d+)([smhd])$/.exec(resolution);
-  if (!match) return resolution === 'raw' ? 'every stored reading' : resolution;
-  const units = { s: 'second', m: 'minute', h: 'hour', d: 'day' } as const;
-  const count = Number(match[1]);
-  const unit = units[match[2] as keyof typeof units];
-  return `one point per ${count === 1 ? unit : `${count} ${unit}s`}`;
+  if (resolution === 'raw') return 'every stored reading';
+  const match = /^(\d+(?:\.\d+)?)([smhd])$/.exec(resolution);
+  if (!match) return resolution;
+  const seconds = Number(match[1]) * UNIT_SECONDS[match[2] as keyof typeof UNIT_SECONDS];
+  const single = SINGLE_UNIT_WORDS[seconds];
+  if (single) return `one point per ${single}`;
+  return `one point per ${bucketWords(seconds)}`;
+}
+
+const UNIT_SECONDS = { s: 1, m: 60, h: 3600, d: 86400 } as const;
+const SINGLE_UNIT_WORDS: Record<number, string> = { 1: 'second', 60: 'minute', 3600: 'hour', 86400: 'day' };
+
+// Seconds as people say them: "20 s", "4 min", "4 h 23 min", "2 d 4 h".
+function bucketWords(seconds: number): string {
+  if (seconds < 90) return `${Math.round(seconds)} s`;
+  const minutes = Math.round(seconds / 60);
+  if (minutes < 90) return `${minutes} min`;
+  if (minutes < 48 * 60) {
+    const h = Math.floor(minutes / 60);
+    const m = minutes % 60;
+    return m === 0 ? `${h} h` : `${h} h ${m} min`;
+  }
+  const hours = Math.round(seconds / 3600);
+  return hours % 24 === 0 ? `${hours / 24} d` : `${Math.floor(hours / 24)} d ${hours % 24} h`;
 }

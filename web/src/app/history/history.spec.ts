@@ -1,10 +1,11 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
-import { NO_ERRORS_SCHEMA } from '@angular/core';
+import { LOCALE_ID, NO_ERRORS_SCHEMA } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { Router, provideRouter } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
@@ -34,7 +35,12 @@ describe('History', () => {
     jest.useFakeTimers({ now: NOW, advanceTimers: true });
     TestBed.configureTestingModule({
       imports: [History],
-      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: LOCALE_ID, useValue: 'en-GB' },
+      ],
     });
     // jsdom has no canvas; the series and plugin maths have their own specs.
     TestBed.overrideComponent(History, {
@@ -79,7 +85,7 @@ describe('History', () => {
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).textContent!;
     expect(text).toContain(flagText('cold-charging').title);
-    expect(text).toContain('one point per 5 minutes');
+    expect(text).toContain('one point per 5 min');
     expect(text).toContain('1 alert in this range');
   });
 
@@ -132,5 +138,54 @@ describe('History', () => {
         to: new Date(NOW - 3 * HOUR).toISOString(),
       },
     });
+  });
+
+  it('shows every series at first and hides or shows one with a single click', async () => {
+    const { fixture, loader, readings, alerts } = await render();
+    readings.flush({
+      resolution: 'raw',
+      points: [{ measuredAt: NOW - HOUR, voltage: 13, current: 1, temperature: -4 }],
+    });
+    alerts.flush({ alerts: [] });
+    const hidden = () =>
+      (
+        fixture.componentInstance as unknown as {
+          chartData(): { datasets: { label: string; hidden: boolean }[] };
+        }
+      )
+        .chartData()
+        .datasets.filter((d) => d.hidden)
+        .map((d) => d.label);
+    expect(hidden()).toEqual([]);
+    const temperature = await loader.getHarness(MatCheckboxHarness.with({ label: /Temperature/ }));
+    expect(await temperature.isChecked()).toBe(true);
+    await temperature.toggle();
+    expect(hidden()).toEqual(['Temperature (°C)']);
+    await temperature.toggle();
+    expect(hidden()).toEqual([]);
+    const charge = await loader.getHarness(MatCheckboxHarness.with({ label: /State of charge/ }));
+    await charge.toggle();
+    expect(hidden()).toEqual(['State of charge (%)']);
+  });
+
+  it('writes every date and time on the screen in one format of the viewer’s locale', async () => {
+    const { fixture, readings, alerts } = await render({
+      from: '2026-12-02T06:00:00.000Z',
+      to: '2026-12-02T10:00:00.000Z',
+    });
+    readings.flush({ resolution: '240s', points: [] });
+    alerts.flush({
+      alerts: [{ ...alert, startedAt: Date.UTC(2026, 11, 2, 7), endedAt: Date.UTC(2026, 11, 2, 8) }],
+    });
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent!.replace(/\s+/g, ' ');
+    const format = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+    expect(text).toContain(
+      `${format.format(Date.UTC(2026, 11, 2, 6))} – ${format.format(Date.UTC(2026, 11, 2, 10))}`,
+    );
+    expect(text).toContain(
+      `${format.format(Date.UTC(2026, 11, 2, 7))} – ${format.format(Date.UTC(2026, 11, 2, 8))}`,
+    );
+    expect(text).toContain('one point per 4 min');
   });
 });

@@ -1,8 +1,17 @@
-import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  LOCALE_ID,
+  computed,
+  inject,
+  input,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router } from '@angular/router';
@@ -12,6 +21,7 @@ import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api } from '../core/api';
+import { DateTimePipe } from '../core/date-time-pipe';
 import { flagText } from '../core/flag-text';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
@@ -30,7 +40,13 @@ import {
   rangeFromQuery,
   widen,
 } from './time-range';
-import { toHistorySeries } from './to-history-series';
+import {
+  HISTORY_SERIES,
+  HistorySeries,
+  SERIES_COLORS,
+  seriesLabel,
+  toHistorySeries,
+} from './to-history-series';
 
 /** One system's stored readings over a chosen range, with its alerts marked on the time axis. */
 @Component({
@@ -40,10 +56,11 @@ import { toHistorySeries } from './to-history-series';
   imports: [
     MatButtonModule,
     MatButtonToggleModule,
+    MatCheckboxModule,
     MatIconModule,
     MatProgressSpinnerModule,
     BaseChartDirective,
-    DatePipe,
+    DateTimePipe,
     SystemNav,
     CustomRange,
   ],
@@ -55,6 +72,7 @@ export class History {
   private readonly alertsApi = inject(AlertsApi);
   private readonly router = inject(Router);
   private readonly preferences = inject(Preferences);
+  private readonly locale = inject(LOCALE_ID);
 
   /** The system id from the route. */
   readonly id = input.required<string>();
@@ -98,19 +116,46 @@ export class History {
       .sort((a, b) => a.startedAt - b.startedAt)
       .map((alert) => ({ ...alert, title: flagText(alert.kind).title }));
   });
+  /** Series the person switched off; every series starts shown. */
+  protected readonly hiddenSeries = signal<ReadonlySet<HistorySeries>>(new Set());
+  protected readonly seriesSwitches = computed(() =>
+    HISTORY_SERIES.map((series) => ({
+      series,
+      label: seriesLabel(series, this.preferences.temperatureUnit()),
+      color: SERIES_COLORS[series],
+      shown: !this.hiddenSeries().has(series),
+    })),
+  );
   protected readonly chartData = computed(() =>
-    toHistorySeries(this.points(), this.preferences.temperatureUnit()),
+    toHistorySeries(this.points(), this.preferences.temperatureUnit(), this.hiddenSeries()),
   );
   protected readonly chartOptions = computed<ChartOptions<'line'>>(() =>
-    historyChartOptions(this.range(), this.alertList(), this.preferences.temperatureUnit(), (range) =>
-      this.showRange(range),
+    historyChartOptions(
+      this.range(),
+      this.alertList(),
+      this.preferences.temperatureUnit(),
+      this.locale,
+      (range) => this.showRange(range),
     ),
+  );
+  protected readonly shownNames = computed(() =>
+    this.seriesSwitches()
+      .filter((s) => s.shown)
+      .map((s) => s.label.replace(/ \(.*\)$/, '').toLowerCase()),
   );
   protected readonly chartSummary = computed(() => {
     const alerts = this.alertList().length;
     const alertWords = alerts === 0 ? 'no alerts' : alerts === 1 ? '1 alert' : `${alerts} alerts`;
     return `${describeSeries(this.points(), 'in this range')} ${alertWords} in this range.`;
   });
+
+  /** Shows or hides one series (its axis goes with it). */
+  protected toggleSeries(series: HistorySeries, shown: boolean): void {
+    const hidden = new Set(this.hiddenSeries());
+    if (shown) hidden.delete(series);
+    else hidden.add(series);
+    this.hiddenSeries.set(hidden);
+  }
 
   /** Shows a preset range ending now. */
   protected choosePreset(preset: RangePreset | 'custom'): void {

@@ -1,9 +1,18 @@
-import { toHistorySeries } from './to-history-series';
+import { GAP_INTERVALS, gapThreshold, toHistorySeries } from './to-history-series';
 
 const points = [
   { measuredAt: 2000, voltage: 13.1, current: -5, temperature: 20, stateOfCharge: 60 },
   { measuredAt: 1000, voltage: 13.3, current: 4, temperature: 10 },
 ];
+
+const MINUTE = 60_000;
+const everyMinute = (from: number, count: number) =>
+  Array.from({ length: count }, (_, i) => ({
+    measuredAt: from + i * MINUTE,
+    voltage: 13,
+    current: 1,
+    temperature: 5,
+  }));
 
 describe('toHistorySeries', () => {
   it('plots each quantity in time order on its own axis', () => {
@@ -24,6 +33,32 @@ describe('toHistorySeries', () => {
     expect(toHistorySeries(points, 'F').datasets[3].label).toBe('Temperature (°F)');
   });
 
+  it('shows every series, temperature included, unless it is hidden', () => {
+    expect(toHistorySeries(points, 'C').datasets.map((d) => d.hidden)).toEqual([false, false, false, false]);
+    expect(
+      toHistorySeries(points, 'C', new Set(['temperature', 'soc'])).datasets.map((d) => d.hidden),
+    ).toEqual([false, false, true, true]);
+  });
+
+  it('breaks the line across a gap of more than a few reporting intervals', () => {
+    const data = toHistorySeries([...everyMinute(0, 30), ...everyMinute(120 * MINUTE, 30)], 'C');
+    expect(data.datasets.every((d) => d.spanGaps === GAP_INTERVALS * MINUTE)).toBe(true);
+  });
+
   it('returns a new object each time so the chart redraws', () =>
     expect(toHistorySeries(points, 'C')).not.toBe(toHistorySeries(points, 'C')));
+});
+
+describe('gapThreshold', () => {
+  it('is a few times the usual spacing, whatever the gaps', () => {
+    const spaced = [...everyMinute(0, 20), ...everyMinute(600 * MINUTE, 20)];
+    expect(gapThreshold(spaced)).toBe(GAP_INTERVALS * MINUTE);
+  });
+
+  it('follows the data: hourly points allow a few hours', () =>
+    expect(gapThreshold([0, 1, 2, 3].map((h) => ({ measuredAt: h * 3_600_000 })))).toBe(
+      GAP_INTERVALS * 3_600_000,
+    ));
+
+  it('cannot tell from a single point', () => expect(gapThreshold([{ measuredAt: 5 }])).toBeNull());
 });
