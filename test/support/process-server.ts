@@ -5,16 +5,22 @@ import { TEST_JWT_SECRET } from './test-secret';
 
 const projectRoot = join(__dirname, '..', '..');
 
-/** A port that was free a moment ago on loopback; fixed ports let a device reconnect after a restart. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as { port: number };
-      probe.close(() => resolve(port));
+/**
+ * A port that was free a moment ago on loopback; fixed ports let a device reconnect after a restart. Drawn
+ * below Linux's ephemeral range (32768 and up), so an outgoing connection of another process on a busy
+ * machine cannot take it between this probe and the server's listen.
+ */
+export async function freePort(): Promise<number> {
+  for (let tries = 0; tries < 50; tries++) {
+    const port = 20000 + Math.floor(Math.random() * 12000);
+    const free = await new Promise<boolean>((resolve) => {
+      const probe = createServer();
+      probe.once('error', () => resolve(false));
+      probe.listen(port, '127.0.0.1', () => probe.close(() => resolve(true)));
     });
-  });
+    if (free) return port;
+  }
+  throw new Error('no free port found below the ephemeral range');
 }
 
 /** Options of a server run as its own process. */
