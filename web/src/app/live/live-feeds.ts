@@ -1,4 +1,4 @@
-import type { SystemStatus, SystemSummary } from '@cellwarden/shared';
+import type { SystemSettings, SystemStatus, SystemSummary } from '@cellwarden/shared';
 import { Observable, catchError, concat, map, of, scan, startWith, takeWhile } from 'rxjs';
 import { Api } from '../core/api';
 import { ApiProblem, apiProblem } from '../core/api-error';
@@ -63,12 +63,9 @@ export function liveChartPoints(api: Api, stream: LiveStream, id: string): Obser
   );
 }
 
-/** Labels of the system's charge sources by id; none when the settings cannot be read. */
-export function sourceLabels(api: SettingsApi, id: string): Observable<Record<string, string>> {
-  return api.settings(id).pipe(
-    map((settings) => Object.fromEntries(settings.chargeSources.map((s) => [s.id, s.label]))),
-    catchError(() => of({})),
-  );
+/** The system's settings (charge source labels, time zone, usable capacity); null when they cannot be read. */
+export function systemSettings(api: SettingsApi, id: string): Observable<SystemSettings | null> {
+  return api.settings(id).pipe(catchError(() => of(null)));
 }
 
 function pick(reading: ChartPoint): ChartPoint {

@@ -1,9 +1,15 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { NO_ERRORS_SCHEMA } from '@angular/core';
+import { LOCALE_ID, NO_ERRORS_SCHEMA } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { DerivedState, ReceivedReading, SystemStatus, SystemSummary } from '@cellwarden/shared';
+import type {
+  DerivedState,
+  ReceivedReading,
+  SystemSettings,
+  SystemStatus,
+  SystemSummary,
+} from '@cellwarden/shared';
 import { BaseChartDirective } from 'ng2-charts';
 import { Subject } from 'rxjs';
 import type { WebSocketSubjectConfig } from 'rxjs/webSocket';
@@ -59,6 +65,29 @@ const derived = (over: Partial<DerivedState> = {}): DerivedState => ({
   ...over,
 });
 
+const settingsIn = (timeZone: string): SystemSettings => ({
+  name: 'Blue van',
+  kind: 'van',
+  timeZone,
+  battery: { chemistry: 'lifepo4', nominalVoltage: 12, ratedCapacityAh: 200, usableCapacityAh: 160 },
+  bms: { continuousDischargeA: 150, lowVoltageCutoffV: null },
+  chargeSources: [],
+  thresholds: {
+    lowChargeWarningPercent: 20,
+    lowChargeCriticalPercent: 10,
+    lowVoltageV: 12,
+    overTemperatureC: 45,
+    silentAfterMinutes: 15,
+  },
+});
+// The zone a spec's viewer is in, whatever the machine running it.
+const viewerZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
+const otherZone = ['Pacific/Auckland', 'America/Halifax'].find((z) => {
+  const offset = (zone: string) =>
+    new Intl.DateTimeFormat('en-US', { timeZone: zone, timeZoneName: 'longOffset' }).format(NOW);
+  return offset(z) !== offset(viewerZone);
+})!;
+
 describe('Live', () => {
   let sockets: FakeSocket[];
 
@@ -71,6 +100,7 @@ describe('Live', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         provideRouter([]),
+        { provide: LOCALE_ID, useValue: 'en-GB' },
         {
           provide: WEB_SOCKET_FACTORY,
           useValue: (config: WebSocketSubjectConfig<unknown>) => {
@@ -89,7 +119,7 @@ describe('Live', () => {
   });
   afterEach(() => jest.useRealTimers());
 
-  async function render(status: Partial<SystemStatus> = {}) {
+  async function render(status: Partial<SystemStatus> = {}, settings?: SystemSettings) {
     const fixture = TestBed.createComponent(Live);
     fixture.componentRef.setInput('id', 'van-1');
     fixture.detectChanges();
@@ -105,9 +135,13 @@ describe('Live', () => {
       },
     });
     http.expectOne((r) => r.url === '/api/systems/van-1/readings').flush({ resolution: 'raw', points: [] });
-    http
-      .expectOne('/api/systems/van-1/settings')
-      .flush({ error: { code: 'forbidden', message: 'no' } }, { status: 403, statusText: 'Forbidden' });
+    const settingsRequest = http.expectOne('/api/systems/van-1/settings');
+    if (settings) settingsRequest.flush({ settings });
+    else
+      settingsRequest.flush(
+        { error: { code: 'forbidden', message: 'no' } },
+        { status: 403, statusText: 'Forbidden' },
+      );
     await fixture.whenStable();
     const text = () => (fixture.nativeElement as HTMLElement).textContent!.replace(/\s+/g, ' ');
     const settle = async () => {
@@ -220,5 +254,42 @@ describe('Live', () => {
     sockets[0].open();
     await settle();
     expect(text()).toContain('Live: connected');
+  });
+
+  it('answers whether the charge lasts until the system’s morning, and with what to spare', async () => {
+    const { text } = await render({}, settingsIn(viewerZone));
+    const seven = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: viewerZone }).format(
+      NOW + 11 * 3_600_000,
+    );
+    expect(text()).toContain(`Lasts until ${seven} with 42 % to spare`);
+    expect(text()).not.toContain('system time');
+  });
+
+  it('says when the charge runs out if that comes before morning', async () => {
+    const { text } = await render(
+      {
+        derived: derived({
+          hoursToEmpty: 3,
+          byMorning: { at: NOW + 11 * 3_600_000, stateOfCharge: 0, crossesLowAt: null },
+        }),
+      },
+      settingsIn('UTC'),
+    );
+    // A reading at 19:59:50 UTC + 3 h on the system's clock, to the minute.
+    expect(text()).toContain('Runs out around 23:00');
+  });
+
+  it('names the system’s zone when it differs from the viewer’s', async () => {
+    const { text } = await render({}, settingsIn(otherZone));
+    const zone = new Intl.DateTimeFormat('en-GB', { timeZone: otherZone, timeZoneName: 'long' })
+      .formatToParts(NOW + 11 * 3_600_000)
+      .find((p) => p.type === 'timeZoneName')!.value;
+    expect(text()).toContain(`(system time, ${zone})`);
+  });
+
+  it('shows the amp-hours left from the usable capacity in the settings', async () => {
+    const { text } = await render({}, settingsIn('UTC'));
+    // 71 % of 160 Ah usable.
+    expect(text()).toMatch(/Charge left\s*114 Ah/);
   });
 });

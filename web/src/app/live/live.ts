@@ -1,5 +1,5 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
@@ -11,6 +11,8 @@ import { switchMap } from 'rxjs';
 import { Api } from '../core/api';
 import type { ApiProblem } from '../core/api-error';
 import { currentDirection } from '../core/current-direction';
+import { formatInstant, viewerTimeZone } from '../core/date-time';
+import { DateTimePipe } from '../core/date-time-pipe';
 import { LiveStream } from '../core/live-stream';
 import { injectNow } from '../core/now';
 import { SettingsApi } from '../core/settings-api';
@@ -21,8 +23,9 @@ import { ChargeColumn } from './charge-column/charge-column';
 import { isColdCharging } from './cold-charge';
 import { describeSeries } from './describe-series';
 import { FlagList } from './flag-list/flag-list';
-import { liveChartPoints, liveStates, sourceLabels, systemOrMissing } from './live-feeds';
+import { liveChartPoints, liveStates, systemOrMissing, systemSettings } from './live-feeds';
 import type { ActiveFlag } from './live-state';
+import { ampHoursRemaining, morningHeadline } from './morning-headline';
 import { formatHours } from './runtime-text';
 import { sourceShares } from './source-shares';
 import { toChartSeries } from './to-chart-series';
@@ -38,7 +41,7 @@ import { toChartSeries } from './to-chart-series';
     MatProgressSpinnerModule,
     BaseChartDirective,
     DecimalPipe,
-    DatePipe,
+    DateTimePipe,
     TemperaturePipe,
     SystemNav,
     ChargeColumn,
@@ -51,6 +54,7 @@ export class Live {
   private readonly api = inject(Api);
   private readonly settingsApi = inject(SettingsApi);
   private readonly stream = inject(LiveStream);
+  private readonly locale = inject(LOCALE_ID);
   protected readonly now = injectNow(5_000);
 
   /** The system id from the route. */
@@ -64,9 +68,17 @@ export class Live {
       initialValue: { phase: 'loading' as const },
     },
   );
-  private readonly labels = toSignal(this.id$.pipe(switchMap((id) => sourceLabels(this.settingsApi, id))), {
-    initialValue: {},
-  });
+  private readonly settings = toSignal(
+    this.id$.pipe(switchMap((id) => systemSettings(this.settingsApi, id))),
+    {
+      initialValue: null,
+    },
+  );
+  private readonly labels = computed<Record<string, string>>(() =>
+    Object.fromEntries((this.settings()?.chargeSources ?? []).map((s) => [s.id, s.label])),
+  );
+  /** The system's clock: projections are about its morning. Until its settings arrive, the viewer's. */
+  protected readonly systemZone = computed(() => this.settings()?.timeZone ?? viewerTimeZone());
   private readonly points = toSignal(
     this.id$.pipe(switchMap((id) => liveChartPoints(this.api, this.stream, id))),
     {
@@ -101,6 +113,24 @@ export class Live {
     () => this.derived()?.stateOfCharge ?? this.reading()?.stateOfCharge ?? null,
   );
   protected readonly runtime = computed(() => runtimeText(this.direction(), this.derived()));
+  protected readonly headline = computed(() =>
+    morningHeadline(this.derived(), {
+      now: this.reading()?.measuredAt ?? this.now(),
+      locale: this.locale,
+      systemZone: this.systemZone(),
+      viewerZone: viewerTimeZone(),
+    }),
+  );
+  protected readonly ampHours = computed(() =>
+    ampHoursRemaining(
+      this.stateOfCharge(),
+      this.settings()?.battery.usableCapacityAh ?? this.summary()?.usableCapacityAh ?? null,
+    ),
+  );
+  protected readonly lowAt = computed(() => {
+    const at = this.derived()?.byMorning?.crossesLowAt;
+    return at ? formatInstant(at, 'time', this.locale, this.systemZone()) : null;
+  });
   protected readonly shares = computed(() => sourceShares(this.reading()?.sourceCurrents, this.labels()));
   protected readonly flags = computed(() =>
     withColdCharge(this.state()?.flags ?? [], this.coldCharging(), this.reading()?.measuredAt),
@@ -112,8 +142,16 @@ export class Live {
     maintainAspectRatio: false,
     parsing: false,
     interaction: { mode: 'nearest', axis: 'x', intersect: false },
+    plugins: {
+      tooltip: {
+        callbacks: { title: (items) => formatInstant(items[0]?.parsed.x ?? null, 'dateTime', this.locale) },
+      },
+    },
     scales: {
-      x: { type: 'time', time: { tooltipFormat: 'HH:mm:ss' } },
+      x: {
+        type: 'time',
+        ticks: { callback: (value) => formatInstant(Number(value), 'time', this.locale) },
+      },
       voltage: { type: 'linear', position: 'left', title: { display: true, text: 'V' } },
       current: {
         type: 'linear',
