@@ -1,5 +1,12 @@
 import type { AlertEvent } from '@cellwarden/shared';
-import { alertMatches, alertSortValue, momentQuery, peakText, toAlertRow } from './alert-row';
+import {
+  alertMatches,
+  alertSortValue,
+  endsOnAnotherDay,
+  momentQuery,
+  peakText,
+  toAlertRow,
+} from './alert-row';
 
 const HOUR = 3_600_000;
 const T = Date.UTC(2026, 11, 1, 22, 0, 0);
@@ -66,4 +73,20 @@ describe('peakText', () => {
   it('keeps other units as sent', () =>
     expect(peakText({ peakValue: 11.456, unit: 'V' }, 'C')).toBe('11.46 V'));
   it('shows a dash without a value', () => expect(peakText({ peakValue: null, unit: 'V' }, 'C')).toBe('—'));
+});
+
+describe('peakText with the flag engine’s units', () => {
+  // NIST SP 811 (2008), B.9: °F = °C × 1.8 + 32; −3 °C = 26.6 °F.
+  it('shows a temperature recorded in °C in °F when the person prefers it', () =>
+    expect(peakText({ peakValue: -3, unit: '°C' }, 'F')).toBe('26.6 °F'));
+});
+
+describe('endsOnAnotherDay', () => {
+  const at = (day: number, hour: number) => new Date(2026, 11, day, hour).getTime();
+  it('is true for an alert that ran overnight', () =>
+    expect(endsOnAnotherDay({ startedAt: at(2, 23), endedAt: at(3, 2) })).toBe(true));
+  it('is false within one day and while still active', () => {
+    expect(endsOnAnotherDay({ startedAt: at(2, 10), endedAt: at(2, 12) })).toBe(false);
+    expect(endsOnAnotherDay({ startedAt: at(2, 10), endedAt: null })).toBe(false);
+  });
 });

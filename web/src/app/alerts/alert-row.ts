@@ -64,14 +64,23 @@ export function momentQuery(alert: AlertEvent, now: number): { from: string; to:
   };
 }
 
-/** The worst value of an alert with its unit; temperatures (SenML "Cel") in the person's unit. */
+// The flag engine records temperatures as "°C"; SenML (RFC 8428 §12.1) names degrees Celsius "Cel".
+const CELSIUS_UNITS = new Set(['Cel', '°C', 'C']);
+
+/** The worst value of an alert with its unit; temperatures (°C or SenML "Cel") in the person's unit. */
 export function peakText(
   alert: Pick<AlertEvent, 'peakValue' | 'unit'>,
   temperatureUnit: TemperatureUnit,
 ): string {
   if (alert.peakValue == null) return '—';
-  if (alert.unit === 'Cel') return formatTemperature(alert.peakValue, temperatureUnit);
+  if (CELSIUS_UNITS.has(alert.unit)) return formatTemperature(alert.peakValue, temperatureUnit);
   const digits = Math.abs(alert.peakValue) >= 100 ? 0 : 2;
   const value = Number(alert.peakValue.toFixed(digits)).toString();
   return `${value} ${alert.unit === '%EL' ? '%' : alert.unit}`;
+}
+
+/** Whether an alert ended on a later calendar day (viewer's clock) than it started: its end then needs a date. */
+export function endsOnAnotherDay(alert: Pick<AlertEvent, 'startedAt' | 'endedAt'>): boolean {
+  if (alert.endedAt === null) return false;
+  return new Date(alert.startedAt).toDateString() !== new Date(alert.endedAt).toDateString();
 }

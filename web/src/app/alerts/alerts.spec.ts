@@ -11,6 +11,7 @@ import { MatTableHarness } from '@angular/material/table/testing';
 import { provideRouter } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
 import { flagText } from '../core/flag-text';
+import { Preferences } from '../core/preferences';
 import { Alerts } from './alerts';
 
 const NOW = Date.UTC(2026, 11, 2, 12, 0, 0);
@@ -178,5 +179,24 @@ describe('Alerts', () => {
   it('shows an error when the alerts cannot be loaded', async () => {
     const { fixture } = await render({ error: { code: 'boom', message: 'x' } }, 500);
     expect(fixture.nativeElement.querySelector('[role="alert"]')).not.toBeNull();
+  });
+
+  it('shows a temperature alert’s worst value in °F when the person prefers it', async () => {
+    TestBed.inject(Preferences).load().subscribe();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/me/preferences')
+      .flush({ preferences: { temperatureUnit: 'F', emailFlags: [] } });
+    const { loader } = await render({
+      alerts: [alert('cold', { kind: 'cold-charging', severity: 'critical', peakValue: -3, unit: '°C' })],
+    });
+    // NIST SP 811 (2008), B.9: −3 °C × 1.8 + 32 = 26.6 °F.
+    expect(await column(loader, 'peakValue')).toEqual(['26.6 °F']);
+  });
+
+  it('says access has ended rather than blaming the connection when the system is gone', async () => {
+    const { fixture } = await render({ error: { code: 'not_found', message: 'System not found' } }, 404);
+    const text = (fixture.nativeElement as HTMLElement).textContent!;
+    expect(text).toContain('Your access to this system has ended');
+    expect(text).not.toContain('connection');
   });
 });

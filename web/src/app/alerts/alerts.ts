@@ -1,5 +1,4 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { DatePipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -24,6 +23,8 @@ import { RouterLink } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
 import { map, switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
+import { loadFailureText } from '../core/api-error';
+import { DateTimePipe } from '../core/date-time-pipe';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
 import { AcknowledgeData, AcknowledgeDialog } from './acknowledge-dialog/acknowledge-dialog';
@@ -32,6 +33,7 @@ import {
   AlertRow,
   alertMatches,
   alertSortValue,
+  endsOnAnotherDay,
   momentQuery,
   peakText,
   toAlertRow,
@@ -53,7 +55,7 @@ import { alertsLoad } from './alerts-feed';
     MatIconModule,
     MatProgressSpinnerModule,
     RouterLink,
-    DatePipe,
+    DateTimePipe,
     SystemNav,
   ],
   templateUrl: './alerts.html',
@@ -93,6 +95,12 @@ export class Alerts {
       : ['severity', 'title', 'startedAt', 'endedAt', 'peakValue', 'state', 'actions'],
   );
 
+  protected readonly problemText = computed(() => {
+    const load = this.load();
+    return load.phase === 'error'
+      ? loadFailureText(load.problem, 'The alerts could not be loaded. Reload the page to try again.')
+      : null;
+  });
   protected readonly rows = computed(() => this.alerts().map(toAlertRow));
   protected readonly matching = computed(() =>
     sortRows(
@@ -118,6 +126,8 @@ export class Alerts {
   protected setPage(event: PageEvent): void {
     this.page.set({ index: event.pageIndex, size: event.pageSize });
   }
+
+  protected readonly endsOnAnotherDay = endsOnAnotherDay;
 
   protected peak(row: AlertRow): string {
     return peakText(row, this.preferences.temperatureUnit());

@@ -21,6 +21,7 @@ import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api } from '../core/api';
+import { loadFailureText } from '../core/api-error';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { flagText } from '../core/flag-text';
 import { Preferences } from '../core/preferences';
@@ -99,6 +100,19 @@ export class History {
     { initialValue: { phase: 'loading' as const } },
   );
 
+  protected readonly readingsProblem = computed(() => {
+    const load = this.readings();
+    return load.phase === 'error'
+      ? loadFailureText(
+          load.problem,
+          'The readings could not be loaded. Try another range or reload the page.',
+        )
+      : null;
+  });
+  protected readonly alertsProblem = computed(() => {
+    const load = this.alerts();
+    return load.phase === 'error' ? loadFailureText(load.problem, 'The alerts could not be loaded.') : null;
+  });
   protected readonly points = computed(() => {
     const load = this.readings();
     return load.phase === 'ready' ? load.value.points : [];

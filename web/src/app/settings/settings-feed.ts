@@ -1,7 +1,10 @@
-import type { SystemSettings } from '@cellwarden/shared';
-import { Observable, catchError, map, of, startWith } from 'rxjs';
+import type { Grant, SystemSettings } from '@cellwarden/shared';
+import { HttpErrorResponse } from '@angular/common/http';
+import { Observable, catchError, forkJoin, map, of, startWith } from 'rxjs';
+import { AccessApi } from '../access/access-api';
 import { ApiProblem, apiProblem } from '../core/api-error';
 import { SettingsApi } from '../core/settings-api';
+import type { DeviceRight } from './configure-right';
 
 /** Loading, failed, or the settings. */
 export type SettingsLoad =
@@ -14,4 +17,23 @@ export function settingsLoad(api: SettingsApi, systemId: string): Observable<Set
     catchError((error: unknown) => of<SettingsLoad>({ phase: 'error', problem: apiProblem(error) })),
     startWith<SettingsLoad>({ phase: 'loading' }),
   );
+}
+
+/** What the dashboard can learn of the person's rights on a system before they try to change anything. */
+export function rightsLoad(
+  api: AccessApi,
+  systemId: string,
+): Observable<{ devices: DeviceRight; received: Grant[] | null }> {
+  const devices = api.devices(systemId).pipe(
+    map((): DeviceRight => 'allowed'),
+    catchError((error: unknown) =>
+      of<DeviceRight>(
+        error instanceof HttpErrorResponse && (error.status === 403 || error.status === 404)
+          ? 'refused'
+          : 'unknown',
+      ),
+    ),
+  );
+  const received = api.receivedGrants().pipe(catchError(() => of(null)));
+  return forkJoin({ devices, received });
 }

@@ -148,4 +148,62 @@ describe('Settings', () => {
     const request = http.expectOne((r) => r.method === 'PUT' && r.url === '/api/me/preferences');
     expect(request.request.body).toEqual({ temperatureUnit: 'F', emailFlags: [] });
   });
+
+  it('shows a view grant’s form disabled, with the reason, before the person tries to save', async () => {
+    const { fixture, http, loader, input } = await render();
+    http
+      .expectOne('/api/systems/van-1/devices')
+      .flush({ error: { code: 'forbidden', message: 'no' } }, { status: 403, statusText: 'Forbidden' });
+    http.expectOne('/api/grants/received').flush({
+      grants: [
+        {
+          id: 'g1',
+          systemId: 'van-1',
+          systemName: 'Blue van',
+          access: 'view',
+          granteeCompany: { id: 'c1', name: 'Fitters' },
+          granteeUser: null,
+          grantedBy: { id: 'u1', displayName: 'Mara Owner' },
+          createdAt: 0,
+          expiresAt: Date.UTC(2027, 0, 31, 12),
+          revokedAt: null,
+          active: true,
+        },
+      ],
+    });
+    await fixture.whenStable();
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'You have view access to this system, granted by Mara Owner until',
+    );
+    expect(await (await input('Name'))!.isDisabled()).toBe(true);
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Save settings' }))).toHaveLength(0);
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add a charge source/ }))).toHaveLength(
+      0,
+    );
+    http.expectNone((r) => r.method === 'PUT');
+  });
+
+  it('keeps the form open for someone who may manage the system', async () => {
+    const { fixture, http, input } = await render();
+    http.expectOne('/api/systems/van-1/devices').flush({ devices: [] });
+    http.expectOne('/api/grants/received').flush({ grants: [] });
+    await fixture.whenStable();
+    expect(await (await input('Name'))!.isDisabled()).toBe(false);
+  });
+
+  it('says access has ended, not to check the connection, when the system is no longer there to see', async () => {
+    const fixture = TestBed.createComponent(Settings);
+    fixture.componentRef.setInput('id', 'van-1');
+    fixture.detectChanges();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/systems/van-1/settings')
+      .flush(
+        { error: { code: 'not_found', message: 'System not found' } },
+        { status: 404, statusText: 'Not Found' },
+      );
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent!;
+    expect(text).toContain('Your access to this system has ended');
+    expect(text).not.toContain('connection');
+  });
 });

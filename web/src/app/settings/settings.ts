@@ -3,6 +3,7 @@ import {
   Component,
   ElementRef,
   Injector,
+  LOCALE_ID,
   afterNextRender,
   computed,
   effect,
@@ -22,14 +23,17 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSelectModule } from '@angular/material/select';
 import type { SystemSettings } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
-import { ApiProblem, apiProblem } from '../core/api-error';
+import { AccessApi } from '../access/access-api';
+import { ApiProblem, apiProblem, loadFailureText } from '../core/api-error';
+import { formatInstant } from '../core/date-time';
 import { Preferences } from '../core/preferences';
 import { SettingsApi } from '../core/settings-api';
 import { SystemNav } from '../core/system-nav/system-nav';
 import { TemperatureUnit, inUnit, toCelsius } from '../core/temperature-unit';
 import { ChargeSources } from './charge-sources/charge-sources';
 import { PreferencesForm } from './preferences-form/preferences-form';
-import { settingsLoad } from './settings-feed';
+import { REFUSED_REASON, configureRight } from './configure-right';
+import { rightsLoad, settingsLoad } from './settings-feed';
 import { OVER_TEMPERATURE_RANGE_C, fillSettingsForm, readSettingsForm, settingsForm } from './settings-form';
 import { ThresholdField } from './threshold-field/threshold-field';
 
@@ -57,6 +61,8 @@ export class Settings {
   private readonly api = inject(SettingsApi);
   private readonly preferences = inject(Preferences);
   private readonly injector = inject(Injector);
+  private readonly accessApi = inject(AccessApi);
+  private readonly locale = inject(LOCALE_ID);
 
   /** The system id from the route. */
   readonly id = input.required<string>();
@@ -69,8 +75,33 @@ export class Settings {
       initialValue: { phase: 'loading' as const },
     },
   );
+  private readonly rights = toSignal(
+    toObservable(this.id).pipe(switchMap((id) => rightsLoad(this.accessApi, id))),
+    {
+      initialValue: null,
+    },
+  );
+  /** Known before the person tries: what the access rule lets them do here. */
+  private readonly right = computed(() => {
+    const rights = this.rights();
+    if (!rights) return null;
+    return configureRight(rights.devices, rights.received, this.id(), (ms) =>
+      formatInstant(ms, 'dateTime', this.locale),
+    );
+  });
   protected readonly saving = signal(false);
-  protected readonly readOnly = signal(false);
+  /** Set when the server refused a save the form did not know to be refused. */
+  private readonly refused = signal(false);
+  protected readonly readOnly = computed(() => this.refused() || this.right()?.canConfigure === false);
+  protected readonly readOnlyReason = computed(() =>
+    this.right()?.canConfigure === false ? this.right()!.reason : REFUSED_REASON,
+  );
+  protected readonly loadProblem = computed(() => {
+    const load = this.load();
+    return load.phase === 'error'
+      ? loadFailureText(load.problem, 'The settings could not be loaded. Reload the page to try again.')
+      : null;
+  });
   protected readonly problem = signal<ApiProblem | null>(null);
   protected readonly saved = signal(false);
   protected readonly overTemperatureRange = computed(() => {
@@ -97,6 +128,9 @@ export class Settings {
       if (load.phase === 'ready') untracked(() => this.fill(load.value));
     });
     effect(() => this.convertTemperature(this.unit()));
+    effect(() => {
+      if (this.readOnly()) untracked(() => this.form.disable());
+    });
   }
 
   protected save(): void {
@@ -130,8 +164,7 @@ export class Settings {
     this.saving.set(false);
     if (problem.status === 403) {
       // The person may see this system but not configure it.
-      this.readOnly.set(true);
-      this.form.disable();
+      this.refused.set(true);
       // The note is at the top of a long form; bring it into view where the person is.
       afterNextRender(() => this.readOnlyNote()?.nativeElement.focus(), { injector: this.injector });
       return;

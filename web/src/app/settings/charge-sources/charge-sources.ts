@@ -34,6 +34,8 @@ export const SOURCE_KINDS = [
 export class ChargeSources {
   /** The form array of sources. */
   readonly sources = input.required<FormArray<ReturnType<typeof chargeSourceGroup>>>();
+  /** No adding or removing: the person may not change this system's settings. */
+  readonly readOnly = input(false);
 
   protected readonly kinds = SOURCE_KINDS;
 

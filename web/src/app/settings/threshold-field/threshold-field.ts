@@ -39,7 +39,7 @@ import { MatInputModule } from '@angular/material/input';
       <button
         mat-button
         type="button"
-        [disabled]="control().value === defaultValue()"
+        [disabled]="readOnly() || control().value === defaultValue()"
         (click)="resetToDefault()"
         [attr.aria-label]="'Reset ' + label() + ' to the default'"
       >
@@ -65,6 +65,8 @@ import { MatInputModule } from '@angular/material/input';
 export class ThresholdField {
   /** The control holding the value. */
   readonly control = input.required<FormControl<number | null>>();
+  /** The person may not change this value. */
+  readonly readOnly = input(false);
   /** What the threshold is called. */
   readonly label = input.required<string>();
   /** The unit it is entered in. */
