@@ -1,7 +1,7 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
+import { DateTimePipe } from '../../core/date-time-pipe';
 import { flagText } from '../../core/flag-text';
 import type { ActiveFlag } from '../live-state';
 
@@ -9,7 +9,7 @@ import type { ActiveFlag } from '../live-state';
 @Component({
   selector: 'cw-flag-list',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule, DatePipe, RouterLink],
+  imports: [MatIconModule, DateTimePipe, RouterLink],
   templateUrl: './flag-list.html',
   styleUrl: './flag-list.scss',
 })
