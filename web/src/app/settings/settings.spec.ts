@@ -76,7 +76,7 @@ describe('Settings', () => {
   it('shows each threshold’s default and puts it back on request', async () => {
     const { loader, field, input } = await render();
     const warning = await field('Low charge warning (%)');
-    expect(await warning.getTextHints()).toEqual(['Default 20 %']);
+    expect(await warning.getTextHints()).toEqual(['Default 20\u00a0%']);
     await (
       await loader.getHarness(
         MatButtonHarness.with({ selector: '[aria-label="Reset Low charge warning to the default"]' }),

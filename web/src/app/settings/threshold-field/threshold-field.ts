@@ -23,7 +23,8 @@ import { MatInputModule } from '@angular/material/input';
       <mat-label>{{ label() }} ({{ unit() }})</mat-label>
       <input matInput type="number" [step]="step()" [formControl]="control()" />
       @if (defaultValue() != null) {
-        <mat-hint>Default {{ defaultValue()! | number: '1.0-1' }} {{ unit() }}</mat-hint>
+        <!-- A no-break space keeps the unit (°C) with its number on a phone. -->
+        <mat-hint>Default {{ defaultValue()! | number: '1.0-1' }}&nbsp;{{ unit() }}</mat-hint>
       }
       @if (control().hasError('required')) {
         <mat-error>Enter a value.</mat-error>
