@@ -10,20 +10,46 @@ import { createSettingsRepository } from '../../server/src/settings/settings-rep
 import { utcOffsetMinutes } from '../../server/src/settings/utc-offset';
 import { createReadingsRepository } from '../../server/src/telemetry/readings-repository';
 import { SCENARIOS } from '../../simulator/src/scenario-catalog';
-import { simulateReadings } from '../../simulator/src/simulate-readings';
+import { playScenario } from '../../simulator/src/simulate-readings';
 import { DEMO_DEVICES } from './demo-scenario';
 
 const BATCH = 1000;
 
+/** Where the demo's one timeline began, so the live simulators carry it on without a seam. */
+export interface DemoTimeline {
+  /** The first simulated reading, epoch ms. */
+  origin: number;
+  /** The live simulators' reporting interval, s: the history is simulated at it too. */
+  intervalSeconds: number;
+  /** Seed of each demo device's simulation. */
+  seeds: Record<string, number>;
+}
+
+/** The seed of the k-th demo device's timeline. */
+export const demoSeed = (index: number) => 1000 + index;
+
 /**
  * Gives each demo system the past `days` of readings from its scenario, stored through the same repository
  * as live ingest (so the rollups are built), and runs the same analytics over them so the alert history is
- * what the live path would have recorded. A system that already has readings is left alone.
+ * what the live path would have recorded. The scenario is simulated at the live simulators' interval and
+ * one reading per `storedEverySeconds` kept, so a simulator resumed from the returned timeline continues
+ * the same pack (charge, temperature, voltage) where the history ends: no seam. A system that already has
+ * readings is left alone (and no timeline returned).
  */
 export async function seedDemoHistory(
   sequelize: Sequelize,
-  options: { days: number; intervalSeconds: number; now: number; log?: (line: string) => void },
-): Promise<number> {
+  options: {
+    days: number;
+    liveIntervalSeconds: number;
+    storedEverySeconds: number;
+    now: number;
+    log?: (line: string) => void;
+  },
+): Promise<{ stored: number; timeline?: DemoTimeline }> {
+  const every = Math.max(1, Math.round(options.storedEverySeconds / options.liveIntervalSeconds));
+  const step = every * options.liveIntervalSeconds * 1000;
+  const origin = Math.floor((options.now - options.days * 86400_000) / step) * step;
+  const timeline: DemoTimeline = { origin, intervalSeconds: options.liveIntervalSeconds, seeds: {} };
   const readings = createReadingsRepository(sequelize);
   const alerts = createAlertsRepository(sequelize);
   const settingsRepository = createSettingsRepository(sequelize);
@@ -37,14 +63,18 @@ export async function seedDemoHistory(
       },
     );
     if (!row || (await readings.countForSystem(row.systemId)) > 0) continue;
-    const count = Math.floor((options.days * 86400) / options.intervalSeconds);
-    const start = options.now - count * options.intervalSeconds * 1000;
-    const series = simulateReadings(SCENARIOS[device.scenario], {
-      seed: 1000 + index,
-      start,
-      intervalSeconds: options.intervalSeconds,
-      count,
-    }).readings;
+    timeline.seeds[device.id] = demoSeed(index);
+    const series = [];
+    const play = playScenario(SCENARIOS[device.scenario], {
+      seed: demoSeed(index),
+      start: origin,
+      intervalSeconds: options.liveIntervalSeconds,
+    });
+    for (let i = 0; ; i++) {
+      const { reading } = play.next().value!;
+      if (reading.measuredAt >= options.now) break;
+      if (i % every === 0) series.push(reading);
+    }
     for (let i = 0; i < series.length; i += BATCH) {
       const batch = series
         .slice(i, i + BATCH)
@@ -84,5 +114,5 @@ export async function seedDemoHistory(
       }
     }
   }
-  return stored;
+  return { stored, timeline: Object.keys(timeline.seeds).length > 0 ? timeline : undefined };
 }

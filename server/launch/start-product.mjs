@@ -45,6 +45,26 @@ const databaseUrl =
 // Signs access tokens: JWT_SECRET when given, else one made on first run and reused (so sign-ins survive a
 // restart) from a file only this user can read.
 const jwtSecret = env.JWT_SECRET ?? readOrCreateSecret(join(dataRoot, 'jwt-secret'));
+// Where the seeded history's timeline began: each live simulator carries its device's timeline on from it.
+const timelineFile = join(dataRoot, 'demo-timeline.json');
+
+/** The simulator arguments that continue a demo device's seeded history, or none (plain live). */
+function resumeArgs(deviceId) {
+  if (!existsSync(timelineFile)) return [];
+  const timeline = JSON.parse(readFileSync(timelineFile, 'utf8'));
+  const seed = timeline.seeds?.[deviceId];
+  if (seed === undefined) return [];
+  const start = new Date(timeline.origin).toISOString();
+  return [
+    '--seed',
+    String(seed),
+    '--start',
+    start,
+    '--resume',
+    '--interval',
+    String(timeline.intervalSeconds),
+  ];
+}
 const children = [];
 let stopping = false;
 
@@ -66,13 +86,13 @@ async function start() {
     console.log(`PostgreSQL ${alreadyRunning ? 'already running' : 'started'} on 127.0.0.1:${cluster.port}`);
     ensureDatabase(cluster, 'cellwarden');
   }
-  runStep('database preparation', bin('tsx'), [
-    'db/prepare-database.ts',
-    databaseUrl,
-    '--seed',
-    '--history-days',
-    '7',
-  ]);
+  const fleetSecret = readOrCreateSecret(join(dataRoot, 'demo-fleet.secret'));
+  runStep(
+    'database preparation',
+    bin('tsx'),
+    ['db/prepare-database.ts', databaseUrl, '--seed', '--history-days', '7', '--timeline-file', timelineFile],
+    { CW_DEMO_FLEET_SECRET: fleetSecret },
+  );
   ensureWebBuild();
 
   const serverEnv = {
@@ -99,9 +119,20 @@ async function start() {
       device.scenario,
       '--interval',
       '5',
+      ...resumeArgs(device.id),
     ];
     children.push(startChild(`sim ${device.id}`, bin('tsx'), args));
   }
+
+  // The installer company's fleet: one simulator process plays every monitor at a low rate.
+  const { fleet } = demo;
+  const fleetArgs = [
+    'simulator/src/main.ts',
+    ...['--broker', `mqtt://${host}:${mqttPort}`, '--device', `${fleet.idPrefix}:${fleetSecret}`],
+    ...['--fleet', String(fleet.size), '--scenario', fleet.scenarios.join(',')],
+    ...['--interval', String(fleet.intervalSeconds)],
+  ];
+  children.push(startChild('sim fleet', bin('tsx'), fleetArgs));
 
   console.log(`\nCellwarden is up: http://${host}:${httpPort}/`);
   console.log(`MQTT broker: mqtt://${host}:${mqttPort}`);

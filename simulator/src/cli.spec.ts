@@ -93,6 +93,11 @@ describe('command line', () => {
     expect(parseCli(['--help']).help).toBe(true);
   });
 
+  it('resumes only a timeline with a known start', () => {
+    expect(argumentOf([...device, '--resume'])).toBe('resume');
+    expect(parseCli([...device, '--resume', '--start', '2026-12-01T00:00:00Z']).resume).toBe(true);
+  });
+
   it('refuses an unknown option by name', () => {
     expect(() => parseCli([...device, '--turbo'])).toThrow(/--turbo/);
   });

@@ -15,6 +15,8 @@ export const USAGE = `Usage: cellwarden-simulator --device ID:SECRET [options]
   --speed N               simulated seconds per real second (default 1); without --start a run faster
                           than real time replays the last 24 h and then carries on in real time
   --start ISO             simulated time of the first reading (default now)
+  --resume                with --start in the past: carry the timeline on from there, sending only the
+                          readings from now on (the earlier ones are already stored, e.g. the demo's history)
   --offline-every MIN     the monitor drops off every MIN simulated minutes …
   --offline-for MIN       … for MIN minutes, buffering readings and sending them on reconnect
   --list-scenarios        print the scenarios with their pack and charge sources
@@ -44,6 +46,8 @@ export interface CliOptions {
   /** Undefined when not given: then a --count run goes as fast as the broker acknowledges. */
   speed?: number;
   start?: number;
+  /** Send only the readings from now on of a timeline that began at `start`. */
+  resume: boolean;
   offline?: OfflineSchedule;
   listScenarios: boolean;
   help: boolean;
@@ -126,6 +130,7 @@ const OPTIONS = {
   interval: { type: 'string', default: '10' },
   count: { type: 'string' },
   start: { type: 'string' },
+  resume: { type: 'boolean', default: false },
   'offline-every': { type: 'string' },
   'offline-for': { type: 'string' },
   'list-scenarios': { type: 'boolean', default: false },
@@ -145,6 +150,8 @@ export function parseCli(argv: string[]): CliOptions {
       `--fleet needs exactly one --device to name the fleet; got ${devices.length}`,
     );
   }
+  if (values.resume && values.start === undefined)
+    throw new CliArgumentError('resume', '--resume needs --start: the time the timeline began');
   return {
     broker: values.broker,
     devices,
@@ -160,6 +167,7 @@ export function parseCli(argv: string[]): CliOptions {
     count: numberArg('count', values.count, wholePositive, 'a whole number above 0'),
     speed: numberArg('speed', values.speed, positive, 'a number above 0'),
     start: parseStart(values.start),
+    resume: values.resume,
     offline: parseOffline(values['offline-every'], values['offline-for']),
     listScenarios: values['list-scenarios'],
     help: values.help,

@@ -2,18 +2,23 @@ import type { MqttClient } from 'mqtt';
 import { decodeReadingPack } from '@cellwarden/shared';
 import { publishDevice, PublisherDeps } from './device-publisher';
 import { SCENARIOS } from './scenario-catalog';
+import { simulateReadings } from './simulate-readings';
 
 const device = { id: 'cw-bench', secret: 's', seed: 3, scenario: 'phantom-drain' };
 
 // A fake clock and broker: sleeping advances the clock, publishing records what was sent and when.
 function bench() {
   let clock = Date.UTC(2026, 0, 10, 12);
-  const sent: { at: number; measuredAt: number[] }[] = [];
+  const sent: { at: number; measuredAt: number[]; voltages: number[] }[] = [];
   const options: unknown[] = [];
   const client = {
     publishAsync: async (_topic: string, payload: string) => {
       const { readings } = decodeReadingPack(JSON.parse(payload), { now: clock + 600_000 });
-      sent.push({ at: clock, measuredAt: readings.map((r) => r.measuredAt) });
+      sent.push({
+        at: clock,
+        measuredAt: readings.map((r) => r.measuredAt),
+        voltages: readings.map((r) => r.voltage),
+      });
     },
     endAsync: async () => undefined,
     on: () => client,
@@ -77,5 +82,29 @@ describe('publishDevice', () => {
     expect(lines.filter((l) => l.includes('could not connect'))).toHaveLength(3);
     // 1 s, 2 s and 4 s of back-off on the fake clock before the fourth attempt succeeded.
     expect(start() - begun).toBe(7000);
+  });
+
+  it('resumes a stored timeline: the same readings as one continuous run, only those from now on sent live', async () => {
+    const { deps, sent, start } = bench();
+    const now = start();
+    const origin = now - 3600_000;
+    await publishDevice(deps, device, SCENARIOS['frost-night'], {
+      broker: 'mqtt://x',
+      start: origin,
+      intervalSeconds: 60,
+      count: 3,
+      speed: 1,
+      resumeAt: now,
+    });
+    const continuous = simulateReadings(SCENARIOS['frost-night'], {
+      seed: device.seed,
+      start: origin,
+      intervalSeconds: 60,
+      count: 63,
+    }).readings.slice(60);
+    expect(sent.flatMap((s) => s.measuredAt)).toEqual(continuous.map((r) => r.measuredAt));
+    expect(sent.flatMap((s) => s.voltages)).toEqual(continuous.map((r) => r.voltage));
+    // Each goes out when measured, not an hour of catching up later.
+    expect(sent.map((s) => s.at)).toEqual(continuous.map((r) => r.measuredAt));
   });
 });

@@ -24,6 +24,11 @@ export interface PublishSchedule {
   /** Pace readings: simulated seconds per real second, never sending a reading before its measured time. */
   speed?: number;
   offline?: OfflineSchedule;
+  /**
+   * Resume a timeline already stored: readings measured before this instant are computed (so the pack's
+   * state carries on from them) but not sent, and the rest go out live at their measured time.
+   */
+  resumeAt?: number;
 }
 
 // Backlog readings go in packs of this many, each reading with its own time: well under the 64 KiB limit.
@@ -85,7 +90,9 @@ async function publish(client: MqttClient, deviceId: string, readings: readonly 
 
 function dueAt(schedule: PublishSchedule, realStart: number, measuredAt: number): number {
   if (schedule.speed === undefined) return -Infinity;
-  return Math.max(realStart + (measuredAt - schedule.start) / schedule.speed, measuredAt);
+  // A resumed timeline is paced from the instant it resumes at, so its next reading is due when measured.
+  const simulatedStart = schedule.resumeAt ?? schedule.start;
+  return Math.max(realStart + (measuredAt - simulatedStart) / schedule.speed, measuredAt);
 }
 
 // The monitor's link: connected or not, and the readings it holds while away.
@@ -137,6 +144,7 @@ export async function publishDevice(
   try {
     const options = { seed: device.seed, start: schedule.start, intervalSeconds: schedule.intervalSeconds };
     for (const { reading } of playScenario(scenario, options)) {
+      if (schedule.resumeAt !== undefined && reading.measuredAt < schedule.resumeAt) continue;
       if (schedule.count !== undefined && taken >= schedule.count) break;
       taken++;
       const wait = dueAt(schedule, realStart, reading.measuredAt) - deps.now();
