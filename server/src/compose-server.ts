@@ -200,8 +200,7 @@ export async function startServer(
     repository: readingsRepository,
     logger,
     batchSize: config.INGEST_BATCH_SIZE,
-    // INGEST_FLUSH_MS is now the first retry delay: batches no longer wait for a window (see batch-writer.ts).
-    retryMs: config.INGEST_FLUSH_MS,
+    retryMs: config.INGEST_RETRY_MS,
     queueLimit: config.INGEST_QUEUE_LIMIT,
     onStored: (rows) => {
       const lastSeen = new Map<string, number>();

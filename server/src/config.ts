@@ -33,8 +33,8 @@ const configSchema = z.object({
   INGEST_QUEUE_LIMIT: z.coerce.number().int().min(100).default(50000),
   /** Readings per INSERT batch. */
   INGEST_BATCH_SIZE: z.coerce.number().int().min(1).max(5000).default(500),
-  /** Longest a reading waits in the queue before a flush, milliseconds. */
-  INGEST_FLUSH_MS: z.coerce.number().int().min(10).max(10000).default(250),
+  /** First delay before a batch that could not be stored is retried, ms (doubling to 5 s). */
+  INGEST_RETRY_MS: z.coerce.number().int().min(10).max(10000).default(250),
   /** Address people reach the dashboard at; links in e-mails point here. Defaults to http://HOST:PORT. */
   PUBLIC_URL: z.string().url().optional(),
   /**

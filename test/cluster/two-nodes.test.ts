@@ -134,7 +134,7 @@ describe('two node processes sharing Redis and PostgreSQL', () => {
       databaseUrl: database.url,
       httpPort: await freePort(),
       mqttPort: await freePort(),
-      env: { REDIS_URL: redis.url, INGEST_FLUSH_MS: '10' },
+      env: { REDIS_URL: redis.url, INGEST_RETRY_MS: '10' },
     });
     node.start();
     await node.ready();

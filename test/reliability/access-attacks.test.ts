@@ -16,7 +16,7 @@ let vanId: string;
 const [van, cabin] = demo.devices;
 
 beforeAll(async () => {
-  node = await startTestServer({ env: { INGEST_FLUSH_MS: '10' } });
+  node = await startTestServer({ env: { INGEST_RETRY_MS: '10' } });
   owner = (await signInAs(node.baseUrl, demo.users[0].email, demo.password)).accessToken;
   const systems = await request(node.baseUrl).get('/api/systems').set('Authorization', `Bearer ${owner}`);
   vanId = systems.body.systems.find((s: { kind: string }) => s.kind === 'van').id;

@@ -25,7 +25,7 @@ const vanDevice = demo.devices.find((d) => d.system === 'van')!;
 const tokens: Record<GarbageRoute['as'], string> = { owner: '', admin: '', anonymous: '' };
 
 beforeAll(async () => {
-  node = await startTestServer({ env: { SIGN_IN_LIMIT_PER_ADDRESS: '100000', INGEST_FLUSH_MS: '10' } });
+  node = await startTestServer({ env: { SIGN_IN_LIMIT_PER_ADDRESS: '100000', INGEST_RETRY_MS: '10' } });
   tokens.owner = (await signInAs(node.baseUrl, demo.users[0].email, demo.password)).accessToken;
   tokens.admin = (await signInAs(node.baseUrl, 'admin@fitters.example', demo.password)).accessToken;
   [{ systemId: vanSystemId }] = await node.database.query<{ systemId: string }>(

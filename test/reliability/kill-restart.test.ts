@@ -27,7 +27,7 @@ async function startOnFreePorts(databaseUrl: string): Promise<ProcessServer> {
     databaseUrl,
     httpPort: await freePort(),
     mqttPort: await freePort(),
-    env: { INGEST_FLUSH_MS: '10' },
+    env: { INGEST_RETRY_MS: '10' },
   });
   server.start();
   await server.ready();

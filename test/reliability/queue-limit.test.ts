@@ -31,7 +31,7 @@ it('holds at most the queue limit while PostgreSQL is away, and stores every rea
     databaseUrl: url,
     httpPort: await freePort(),
     mqttPort: await freePort(),
-    env: { INGEST_QUEUE_LIMIT: String(QUEUE_LIMIT), INGEST_FLUSH_MS: '10' },
+    env: { INGEST_QUEUE_LIMIT: String(QUEUE_LIMIT), INGEST_RETRY_MS: '10' },
   });
   server.start();
   try {

@@ -38,7 +38,7 @@ export async function startClusterNode(env: Record<string, string>) {
     PORT: '0',
     MQTT_PORT: '0',
     WEB_DIST: '',
-    INGEST_FLUSH_MS: '20',
+    INGEST_RETRY_MS: '20',
     UPLOAD_DIR: uploadDir,
     ...env,
   });

@@ -22,7 +22,7 @@ export async function startTestServer(options: { webDist?: string; env?: Record<
     PORT: '0',
     MQTT_PORT: '0',
     WEB_DIST: options.webDist ?? '',
-    INGEST_FLUSH_MS: '50',
+    INGEST_RETRY_MS: '50',
     UPLOAD_DIR: uploadDir,
     ...options.env,
   });
