@@ -6,8 +6,8 @@ export interface ConfigureRight {
   reason: string | null;
 }
 
-/** What asking for the system's devices told: owners and the installer's fitters may manage them. */
-export type DeviceRight = 'allowed' | 'refused' | 'unknown';
+/** What asking for the system's grants told: only its owner may list them. */
+export type OwnerAnswer = 'owner' | 'not-owner' | 'unknown';
 
 const MAY_CONFIGURE: ConfigureRight = { canConfigure: true, reason: null };
 
@@ -17,19 +17,23 @@ export const REFUSED_REASON =
   'to configure, or the installer of this system. Ask the owner if you need to adjust something.';
 
 /**
- * The access rule (server/src/access/access-policy.ts) as far as the dashboard can see it: owners and the
- * installing company's fitters may manage devices and therefore configure; anyone else only through an
- * active grant to configure. When either answer is missing the form stays open and the server decides.
+ * The access rule (server/src/access/access-policy.ts) as far as the dashboard can see it: the owner may
+ * configure, and so may anyone with an active grant to configure. Installers may when the system is their
+ * company's, which the dashboard cannot see, so their form stays open and the server decides. Everyone else
+ * (support staff, company admins, owners of other systems) sees the settings through a grant to view, or as
+ * a company admin, and cannot change them. With any answer missing the form stays open.
  */
 export function configureRight(
-  devices: DeviceRight,
+  owner: OwnerAnswer,
+  roles: readonly string[] | null,
   received: readonly Grant[] | null,
   systemId: string,
   describeUntil: (ms: number) => string,
 ): ConfigureRight {
-  if (devices !== 'refused' || received === null) return MAY_CONFIGURE;
+  if (owner !== 'not-owner' || roles === null || received === null) return MAY_CONFIGURE;
   const grants = received.filter((g) => g.systemId === systemId && g.active);
   if (grants.some((g) => g.access === 'configure')) return MAY_CONFIGURE;
+  if (roles.includes('installer')) return MAY_CONFIGURE;
   const view = [...grants].sort((a, b) => b.expiresAt - a.expiresAt)[0];
   if (!view) return { canConfigure: false, reason: REFUSED_REASON };
   return {

@@ -4,7 +4,7 @@ import { Observable, catchError, forkJoin, map, of, startWith } from 'rxjs';
 import { AccessApi } from '../access/access-api';
 import { ApiProblem, apiProblem } from '../core/api-error';
 import { SettingsApi } from '../core/settings-api';
-import type { DeviceRight } from './configure-right';
+import type { OwnerAnswer } from './configure-right';
 
 /** Loading, failed, or the settings. */
 export type SettingsLoad =
@@ -23,17 +23,14 @@ export function settingsLoad(api: SettingsApi, systemId: string): Observable<Set
 export function rightsLoad(
   api: AccessApi,
   systemId: string,
-): Observable<{ devices: DeviceRight; received: Grant[] | null }> {
-  const devices = api.devices(systemId).pipe(
-    map((): DeviceRight => 'allowed'),
+): Observable<{ owner: OwnerAnswer; received: Grant[] | null }> {
+  // Only the owner may list a system's grants (403 for anyone else who may see it).
+  const owner = api.grants(systemId).pipe(
+    map((): OwnerAnswer => 'owner'),
     catchError((error: unknown) =>
-      of<DeviceRight>(
-        error instanceof HttpErrorResponse && (error.status === 403 || error.status === 404)
-          ? 'refused'
-          : 'unknown',
-      ),
+      of<OwnerAnswer>(error instanceof HttpErrorResponse && error.status === 403 ? 'not-owner' : 'unknown'),
     ),
   );
   const received = api.receivedGrants().pipe(catchError(() => of(null)));
-  return forkJoin({ devices, received });
+  return forkJoin({ owner, received });
 }

@@ -1,6 +1,7 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
@@ -8,6 +9,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatRadioButtonHarness } from '@angular/material/radio/testing';
 import { provideRouter } from '@angular/router';
 import type { SystemSettings } from '@cellwarden/shared';
+import { Auth } from '../core/auth';
 import { Settings } from './settings';
 
 const settings: SystemSettings = {
@@ -32,6 +34,12 @@ const settings: SystemSettings = {
     silentAfterMinutes: 15,
   },
 };
+
+// The signed-in person, as Auth holds them after a sign-in.
+function signedInAs(roles: ('owner' | 'installer' | 'support' | 'admin')[]): void {
+  const user = { id: 'u9', email: 'sam@example.com', displayName: 'Sam', roles, companyId: 'c1' };
+  Object.defineProperty(TestBed.inject(Auth), 'currentUser', { value: signal(user) });
+}
 
 describe('Settings', () => {
   beforeEach(() => {
@@ -151,8 +159,9 @@ describe('Settings', () => {
 
   it('shows a view grant’s form disabled, with the reason, before the person tries to save', async () => {
     const { fixture, http, loader, input } = await render();
+    signedInAs(['support']);
     http
-      .expectOne('/api/systems/van-1/devices')
+      .expectOne('/api/systems/van-1/grants')
       .flush({ error: { code: 'forbidden', message: 'no' } }, { status: 403, statusText: 'Forbidden' });
     http.expectOne('/api/grants/received').flush({
       grants: [
@@ -185,7 +194,8 @@ describe('Settings', () => {
 
   it('keeps the form open for someone who may manage the system', async () => {
     const { fixture, http, input } = await render();
-    http.expectOne('/api/systems/van-1/devices').flush({ devices: [] });
+    signedInAs(['owner']);
+    http.expectOne('/api/systems/van-1/grants').flush({ grants: [] });
     http.expectOne('/api/grants/received').flush({ grants: [] });
     await fixture.whenStable();
     expect(await (await input('Name'))!.isDisabled()).toBe(false);

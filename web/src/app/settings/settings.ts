@@ -25,6 +25,7 @@ import type { SystemSettings } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
 import { AccessApi } from '../access/access-api';
 import { ApiProblem, apiProblem, loadFailureText } from '../core/api-error';
+import { Auth } from '../core/auth';
 import { formatInstant } from '../core/date-time';
 import { Preferences } from '../core/preferences';
 import { SettingsApi } from '../core/settings-api';
@@ -62,6 +63,7 @@ export class Settings {
   private readonly preferences = inject(Preferences);
   private readonly injector = inject(Injector);
   private readonly accessApi = inject(AccessApi);
+  private readonly auth = inject(Auth);
   private readonly locale = inject(LOCALE_ID);
 
   /** The system id from the route. */
@@ -85,7 +87,8 @@ export class Settings {
   private readonly right = computed(() => {
     const rights = this.rights();
     if (!rights) return null;
-    return configureRight(rights.devices, rights.received, this.id(), (ms) =>
+    const roles = this.auth.currentUser()?.roles ?? null;
+    return configureRight(rights.owner, roles, rights.received, this.id(), (ms) =>
       formatInstant(ms, 'dateTime', this.locale),
     );
   });
