@@ -26,6 +26,7 @@ import { switchMap } from 'rxjs';
 import { AccessApi } from '../access/access-api';
 import { ApiProblem, apiProblem, loadFailureText } from '../core/api-error';
 import { Auth } from '../core/auth';
+import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';
 import { formatInstant } from '../core/date-time';
 import { Preferences } from '../core/preferences';
 import { SettingsApi } from '../core/settings-api';
@@ -33,8 +34,7 @@ import { SystemNav } from '../core/system-nav/system-nav';
 import { TemperatureUnit, inUnit, toCelsius } from '../core/temperature-unit';
 import { ChargeSources } from './charge-sources/charge-sources';
 import { PreferencesForm } from './preferences-form/preferences-form';
-import { REFUSED_REASON, configureRight } from './configure-right';
-import { rightsLoad, settingsLoad } from './settings-feed';
+import { settingsLoad } from './settings-feed';
 import { OVER_TEMPERATURE_RANGE_C, fillSettingsForm, readSettingsForm, settingsForm } from './settings-form';
 import { ThresholdField } from './threshold-field/threshold-field';
 
@@ -87,17 +87,18 @@ export class Settings {
   private readonly right = computed(() => {
     const rights = this.rights();
     if (!rights) return null;
-    const roles = this.auth.currentUser()?.roles ?? null;
-    return configureRight(rights.owner, roles, rights.received, this.id(), (ms) =>
-      formatInstant(ms, 'dateTime', this.locale),
-    );
+    return configureRight(rights.owner, this.auth.currentUser()?.roles ?? null, rights.received, this.id());
   });
   protected readonly saving = signal(false);
   /** Set when the server refused a save the form did not know to be refused. */
   private readonly refused = signal(false);
   protected readonly readOnly = computed(() => this.refused() || this.right()?.canConfigure === false);
   protected readonly readOnlyReason = computed(() =>
-    this.right()?.canConfigure === false ? this.right()!.reason : REFUSED_REASON,
+    readOnlyReason(
+      this.right() ?? { canConfigure: false, viewGrant: null },
+      'you can see these settings but not change them',
+      (ms) => formatInstant(ms, 'dateTime', this.locale),
+    ),
   );
   protected readonly loadProblem = computed(() => {
     const load = this.load();
