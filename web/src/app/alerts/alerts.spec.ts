@@ -1,6 +1,7 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
@@ -10,6 +11,7 @@ import { MatSortHarness } from '@angular/material/sort/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { provideRouter } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
+import { Auth } from '../core/auth';
 import { flagText } from '../core/flag-text';
 import { Preferences } from '../core/preferences';
 import { Alerts } from './alerts';
@@ -198,5 +200,26 @@ describe('Alerts', () => {
     const text = (fixture.nativeElement as HTMLElement).textContent!;
     expect(text).toContain('Your access to this system has ended');
     expect(text).not.toContain('connection');
+  });
+
+  it('tells a person with a view grant they cannot acknowledge, and offers no Acknowledge button', async () => {
+    const user = {
+      id: 'u9',
+      email: 'sam@example.com',
+      displayName: 'Sam',
+      roles: ['support'],
+      companyId: 'c1',
+    };
+    Object.defineProperty(TestBed.inject(Auth), 'currentUser', { value: signal(user) });
+    const { fixture, http, loader } = await render({ alerts: [alert('a')] });
+    http
+      .expectOne('/api/systems/van-1/grants')
+      .flush({ error: { code: 'forbidden', message: 'no' } }, { status: 403, statusText: 'Forbidden' });
+    http.expectOne('/api/grants/received').flush({ grants: [] });
+    await fixture.whenStable();
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'You can read these alerts but not acknowledge them',
+    );
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Acknowledge' }))).toHaveLength(0);
   });
 });

@@ -2,6 +2,7 @@ import { BreakpointObserver } from '@angular/cdk/layout';
 import {
   ChangeDetectionStrategy,
   Component,
+  LOCALE_ID,
   computed,
   inject,
   input,
@@ -22,8 +23,12 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
 import { map, switchMap } from 'rxjs';
+import { AccessApi } from '../access/access-api';
 import { AlertsApi } from '../core/alerts-api';
 import { loadFailureText } from '../core/api-error';
+import { Auth } from '../core/auth';
+import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';
+import { formatInstant } from '../core/date-time';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
@@ -66,6 +71,9 @@ export class Alerts {
   private readonly dialog = inject(MatDialog);
   private readonly preferences = inject(Preferences);
   private readonly breakpoints = inject(BreakpointObserver);
+  private readonly accessApi = inject(AccessApi);
+  private readonly auth = inject(Auth);
+  private readonly locale = inject(LOCALE_ID);
 
   /** The system id from the route. */
   readonly id = input.required<string>();
@@ -95,6 +103,27 @@ export class Alerts {
       : ['severity', 'title', 'startedAt', 'endedAt', 'peakValue', 'state', 'actions'],
   );
 
+  private readonly rights = toSignal(
+    toObservable(this.id).pipe(switchMap((id) => rightsLoad(this.accessApi, id))),
+    {
+      initialValue: null,
+    },
+  );
+  /** Why this person may not acknowledge alerts, known before they try; null when they may. */
+  protected readonly readOnlyReason = computed(() => {
+    const rights = this.rights();
+    if (!rights) return null;
+    const right = configureRight(
+      rights.owner,
+      this.auth.currentUser()?.roles ?? null,
+      rights.received,
+      this.id(),
+    );
+    if (right.canConfigure) return null;
+    return readOnlyReason(right, 'you can read these alerts but not acknowledge them', (ms) =>
+      formatInstant(ms, 'dateTime', this.locale),
+    );
+  });
   protected readonly problemText = computed(() => {
     const load = this.load();
     return load.phase === 'error'
