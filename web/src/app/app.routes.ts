@@ -39,6 +39,18 @@ export const routes: Routes = [
     loadComponent: () => import('./settings/settings').then((m) => m.Settings),
   },
   {
+    path: 'systems/:id/readings-transfer',
+    title: 'Readings CSV · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./readings-transfer/readings-transfer').then((m) => m.ReadingsTransfer),
+  },
+  {
+    path: 'systems/:id/devices',
+    title: 'Devices · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./access/devices-page/devices-page').then((m) => m.DevicesPage),
+  },
+  {
     path: 'systems/:id/access',
     title: 'Access and devices · Cellwarden',
     canActivate: [authGuard],

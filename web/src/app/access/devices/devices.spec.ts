@@ -126,4 +126,25 @@ describe('Devices', () => {
     await fixture.whenStable();
     http.expectOne('/api/systems/s1/devices').flush({ devices: [{ ...SHUNT, revokedAt: NOW }] });
   });
+
+  it('says why the list is refused instead of blaming the connection', async () => {
+    const fixture = TestBed.createComponent(Devices);
+    fixture.componentRef.setInput('systemId', 's1');
+    fixture.detectChanges();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/systems/s1/devices')
+      .flush(
+        {
+          error: {
+            code: 'forbidden',
+            message: 'Your access to this system does not include "manage-devices"',
+          },
+        },
+        { status: 403, statusText: 'Forbidden' },
+      );
+    await fixture.whenStable();
+    const alert = (fixture.nativeElement as HTMLElement).querySelector('[role="alert"]');
+    expect(alert?.textContent).toContain('does not include "manage-devices"');
+    expect(alert?.textContent).not.toContain('connection');
+  });
 });

@@ -16,7 +16,7 @@ import { AccessApi } from '../access-api';
 import { confirmAction } from '../confirm-dialog/confirm-dialog';
 import { DeviceCredentialsDialog } from '../device-credentials/device-credentials';
 import { DEVICE_ID_PATTERN } from '../device-id';
-import { LoadState, toLoadState } from '../load-state';
+import { LoadState, loadError, toLoadState } from '../load-state';
 
 /** The monitors that publish for a system: list, add (secret shown once), rotate, revoke. */
 @Component({
@@ -46,7 +46,9 @@ export class Devices {
   protected readonly columns = ['label', 'id', 'lastSeen', 'state', 'actions'];
   protected readonly state = toSignal(
     combineLatest([toObservable(this.systemId), toObservable(this.reloads)]).pipe(
-      switchMap(([id]) => toLoadState(this.api.devices(id), 'The devices could not be loaded.')),
+      switchMap(([id]) =>
+        toLoadState(this.api.devices(id), 'The devices could not be loaded. Reload to try again.'),
+      ),
     ),
     { initialValue: { status: 'loading' } as LoadState<DeviceListing[]> },
   );
@@ -54,6 +56,8 @@ export class Devices {
     id: ['', [Validators.required, Validators.pattern(DEVICE_ID_PATTERN)]],
     label: ['', [Validators.required, Validators.maxLength(80)]],
   });
+  /** Why the list did not load: the server's reason (no device rights, access ended) or the connection. */
+  protected readonly loadError = loadError;
   protected readonly submitting = signal(false);
   protected readonly serverError = signal<string | null>(null);
 

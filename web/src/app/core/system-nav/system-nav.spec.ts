@@ -29,13 +29,14 @@ describe('SystemNav', () => {
     return fixture.nativeElement as HTMLElement;
   }
 
-  it('links to the four pages of the system, escaping its id', async () => {
+  it('links to the pages every viewer has, the readings CSV included, escaping its id', async () => {
     const links = Array.from((await render('live')).querySelectorAll('nav a'), (a) => a.getAttribute('href'));
     expect(links).toEqual([
       '/systems/van%201',
       '/systems/van%201/history',
       '/systems/van%201/alerts',
       '/systems/van%201/settings',
+      '/systems/van%201/readings-transfer',
     ]);
   });
 
@@ -51,6 +52,19 @@ describe('SystemNav', () => {
     );
     expect(fitterLinks).not.toContain('keyAccess');
     expect(fitterLinks).toContain('fact_checkCommissioning');
+  });
+
+  it('shows device management to owners and installers, whom the access rule lets manage devices', async () => {
+    const labels = async () =>
+      Array.from((await render('live')).querySelectorAll('nav a'), (a) => a.textContent?.trim());
+    roles = ['installer'];
+    expect(await labels()).toContain('sensorsDevices');
+    roles = ['owner'];
+    expect(await labels()).toContain('sensorsDevices');
+    roles = ['support'];
+    expect(await labels()).not.toContain('sensorsDevices');
+    roles = ['admin'];
+    expect(await labels()).not.toContain('sensorsDevices');
   });
 
   it('marks the page being shown for assistive technology', async () => {

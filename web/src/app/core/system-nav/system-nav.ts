@@ -5,7 +5,8 @@ import type { Role } from '@cellwarden/shared';
 import { Auth } from '../auth';
 
 /** The sections of one system's pages. */
-export type SystemSection = 'live' | 'history' | 'alerts' | 'settings' | 'access' | 'commissioning';
+export type SystemSection =
+  'live' | 'history' | 'alerts' | 'settings' | 'readings-transfer' | 'devices' | 'access' | 'commissioning';
 
 /** Links between one system's live, history, alerts and settings pages, with a way back to the list. */
 @Component({
@@ -111,6 +112,20 @@ export class SystemNav {
       label: 'Settings',
       icon: 'tune',
       path: (id: string) => ['/systems', id, 'settings'],
+    },
+    {
+      section: 'readings-transfer',
+      label: 'CSV',
+      icon: 'import_export',
+      path: (id: string) => ['/systems', id, 'readings-transfer'],
+    },
+    {
+      section: 'devices',
+      label: 'Devices',
+      icon: 'sensors',
+      path: (id: string) => ['/systems', id, 'devices'],
+      // By the access rule the owner and the installers of the system's company manage its devices.
+      roles: ['owner', 'installer'] as Role[],
     },
     {
       section: 'access',
