@@ -1,3 +1,5 @@
+import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
@@ -21,7 +23,8 @@ describe('EnergyBudgetEditor', () => {
   async function setup() {
     TestBed.configureTestingModule({
       imports: [EnergyBudgetEditor],
-      providers: [provideCharts(withDefaultRegisterables())],
+      // The comparison section below the editor asks for the person's systems.
+      providers: [provideCharts(withDefaultRegisterables()), provideHttpClient(), provideHttpClientTesting()],
     });
     const fixture = TestBed.createComponent(EnergyBudgetEditor);
     const loader = TestbedHarnessEnvironment.loader(fixture);

@@ -21,6 +21,7 @@ import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../../core/chart-setup';
 import { map, startWith } from 'rxjs';
 import { Findings } from '../findings/findings';
+import { BudgetComparison } from './budget-comparison/budget-comparison';
 import { WireFuse, WireFusePrefill } from '../wire-fuse/wire-fuse';
 import { budgetChartSummary, toBudgetChart } from './to-budget-chart';
 import { BudgetEditorValue, LoadRow, SourceRow, toBudgetInput } from './to-budget-input';
@@ -47,6 +48,7 @@ const num = (value: number, min: number, max: number) => [
     BaseChartDirective,
     Findings,
     WireFuse,
+    BudgetComparison,
   ],
   templateUrl: './energy-budget.html',
   styleUrl: './energy-budget.scss',
@@ -97,6 +99,11 @@ export class EnergyBudgetEditor {
   protected readonly budget = computed(() => {
     const outcome = this.outcome();
     return outcome.kind === 'budget' ? outcome.budget : null;
+  });
+  /** The budget as the API takes it, when it is valid, for saving it with a system. */
+  protected readonly budgetInput = computed(() => {
+    const value = this.value();
+    return this.budget() && value ? toBudgetInput(value) : null;
   });
   protected readonly chartData = computed(() => {
     const budget = this.budget();
