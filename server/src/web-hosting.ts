@@ -12,6 +12,13 @@ const HASHED = /-[A-Za-z0-9_]{8,}\.[a-z0-9]+$/;
 const IMMUTABLE = 'public, max-age=31536000, immutable';
 // index.html names the current bundles, so it is checked with the server on every load.
 const REVALIDATE = 'no-cache';
+// The service worker's script and manifest decide which build an installed dashboard runs: never kept stale.
+const SERVICE_WORKER_FILES = new Set([
+  '/ngsw.json',
+  '/ngsw-worker.js',
+  '/safety-worker.js',
+  '/worker-basic.min.js',
+]);
 
 const brotli = promisify(brotliCompress);
 const gzipAsync = promisify(gzip);
@@ -77,7 +84,8 @@ export function createWebHosting(distFolder: string): (Router & { ready: Promise
     return true;
   }
 
-  const cacheControlFor = (url: string) => (HASHED.test(url) ? IMMUTABLE : 'public, max-age=3600');
+  const cacheControlFor = (url: string) =>
+    HASHED.test(url) ? IMMUTABLE : SERVICE_WORKER_FILES.has(url) ? REVALIDATE : 'public, max-age=3600';
   router.use((req, res, next) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();
     if (req.path !== '/index.html' && sendEncoded(req, res, req.path, cacheControlFor(req.path))) return;

@@ -1,8 +1,9 @@
 import { Injectable, InjectionToken, effect, inject, signal, untracked } from '@angular/core';
 import type { AlertEvent, DerivedState, ReceivedReading, StreamMessage } from '@cellwarden/shared';
-import { Observable, Subject, filter, map, retry, share, timer } from 'rxjs';
+import { Observable, Subject, filter, map, retry, share, tap, timer } from 'rxjs';
 import { WebSocketSubject, WebSocketSubjectConfig, webSocket } from 'rxjs/webSocket';
 import { Auth } from './auth';
+import { OfflineStore } from './offline/offline-store';
 
 export type { StreamMessage } from '@cellwarden/shared';
 
@@ -30,6 +31,7 @@ export function reconnectDelay(attempt: number): number {
 export class LiveStream {
   private readonly auth = inject(Auth);
   private readonly createSocket = inject(WEB_SOCKET_FACTORY);
+  private readonly offline = inject(OfflineStore);
   // How many subscribers watch each system; the server hears of a system once.
   private readonly watchers = new Map<string, number>();
   private socket: WebSocketSubject<unknown> | null = null;
@@ -61,6 +63,8 @@ export class LiveStream {
         .pipe(
           map((message) => eventFor(message, systemId)),
           filter((event): event is SystemStreamEvent => event !== null),
+          // Each live value is also kept for the offline view, so the last one survives a lost signal.
+          tap((event) => event.type === 'reading' && this.offline.recordReading(systemId, event)),
         )
         .subscribe(subscriber);
       return () => {

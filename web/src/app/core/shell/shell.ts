@@ -10,7 +10,9 @@ import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { MailOutboxApi } from '../../mail-outbox/mail-outbox-api';
 import { Auth } from '../auth';
+import { OfflineStore } from '../offline/offline-store';
 import { Theme } from '../theme';
+import { OfflinePanel } from './offline-panel/offline-panel';
 
 /** The app frame: toolbar, side navigation, main landmark and safety footer. */
 @Component({
@@ -31,6 +33,7 @@ import { Theme } from '../theme';
     RouterOutlet,
     RouterLink,
     RouterLinkActive,
+    OfflinePanel,
   ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
@@ -38,6 +41,7 @@ import { Theme } from '../theme';
 export class Shell {
   protected readonly auth = inject(Auth);
   protected readonly theme = inject(Theme);
+  protected readonly offline = inject(OfflineStore);
   private readonly breakpoints = inject(BreakpointObserver);
   private readonly mailOutbox = inject(MailOutboxApi);
 
@@ -62,6 +66,12 @@ export class Shell {
   protected readonly themeLabel = computed(() =>
     this.theme.mode() === 'dark' ? 'Switch to light theme' : 'Switch to dark theme',
   );
+
+  /** Signs out and forgets the values kept for offline use, so the next person here sees none. */
+  protected signOut(): void {
+    this.offline.forget();
+    this.auth.signOut();
+  }
 
   /** Moves focus to the main landmark; the plain #main link would go through the router. */
   protected skipToMain(event: Event): void {
