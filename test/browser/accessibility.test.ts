@@ -1,7 +1,9 @@
 import { join } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
+import { connectAsync } from 'mqtt';
 import type { BrowserContext, Page } from 'playwright-core';
 import request from 'supertest';
+import { encodeReadingPack, readingsTopic, type BatteryReading } from '@cellwarden/shared';
 import demo from '../../db/seeders/demo-sign-ins.json';
 import { startTestServer } from '../support/test-server';
 import { launchChromium } from './launch-chromium';
@@ -31,6 +33,29 @@ beforeAll(async () => {
     .get('/api/systems')
     .set('Authorization', `Bearer ${signIn.body.accessToken}`);
   vanId = systems.body.systems.find((s: { kind: string }) => s.kind === 'van').id;
+  // A frozen pack on charge, so the live screen shows a flag and its colours are checked too.
+  const [van] = demo.devices;
+  const device = await connectAsync(node.mqttUrl, {
+    username: van.id,
+    password: van.secret,
+    clientId: `${van.id}/axe-${Date.now()}`,
+  });
+  const now = Date.now();
+  const frozenCharging: BatteryReading[] = Array.from({ length: 20 }, (_, i) => ({
+    measuredAt: now - (19 - i) * 5000,
+    voltage: 13.35,
+    current: 9.5,
+    temperature: -7.5,
+    stateOfCharge: 58,
+  }));
+  await device.publishAsync(
+    readingsTopic(van.id),
+    JSON.stringify(encodeReadingPack(van.id, frozenCharging)),
+    {
+      qos: 1,
+    },
+  );
+  await device.endAsync();
 }, 60000);
 afterAll(async () => {
   await chromium?.close();
@@ -128,6 +153,10 @@ describe.each(WIDTHS)('at %i px', (width) => {
       found['access: devices'] = await violations(page);
       await openTab(page, 'Audit trail');
       found['access: audit'] = await violations(page);
+      await open(page, `/systems/${vanId}/readings-transfer`, 'Readings as CSV');
+      found['readings CSV'] = await violations(page);
+      await open(page, `/systems/${vanId}/devices`, 'Device management');
+      found['devices'] = await violations(page);
       await open(page, '/mail-outbox', 'Your mail, local copy');
       found['own mail'] = await violations(page);
       await context.close();
@@ -136,19 +165,32 @@ describe.each(WIDTHS)('at %i px', (width) => {
     180000,
   );
 
-  it("finds nothing on the installer's tools", async () => {
-    const context = await newContext(width);
-    const page = await signIn(context, INSTALLER);
-    const found: Record<string, string[]> = {};
-    await open(page, '/installer', 'Installer tools');
-    found['wire & fuse'] = await violations(page);
-    await openTab(page, 'Energy budget');
-    found['energy budget'] = await violations(page);
-    await open(page, `/systems/${vanId}/commissioning`, /commissioning/i);
-    found['commissioning and uploads'] = await violations(page);
-    await context.close();
-    expect(withViolations(found)).toEqual({});
-  }, 180000);
+  it.each(['light', 'dark'] as const)(
+    "finds nothing on the installer's tools (%s theme)",
+    async (theme) => {
+      const context = await newContext(width, theme);
+      const page = await signIn(context, INSTALLER);
+      const found: Record<string, string[]> = {};
+      await open(page, '/installer', 'Installer tools');
+      found['wire & fuse'] = await violations(page);
+      // A verdict box in the status colours.
+      await page.getByLabel('Continuous current').fill('60');
+      await page.getByLabel('Run length, one way').fill('2');
+      await page
+        .getByRole('region', { name: 'Wire and fuse result' })
+        .getByText(/passes|does not/)
+        .first()
+        .waitFor();
+      found['wire & fuse with a result'] = await violations(page);
+      await openTab(page, 'Energy budget');
+      found['energy budget'] = await violations(page);
+      await open(page, `/systems/${vanId}/commissioning`, /commissioning/i);
+      found['commissioning and uploads'] = await violations(page);
+      await context.close();
+      expect(withViolations(found)).toEqual({});
+    },
+    180000,
+  );
 
   it('finds nothing on the team, received-access and fleet screens of company staff', async () => {
     const context = await newContext(width);
