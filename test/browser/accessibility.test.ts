@@ -236,3 +236,51 @@ it('shows a visible focus ring on the controls a keyboard user tabs through', as
   await context.close();
   expect(unringed).toEqual([]);
 });
+
+it('lets a keyboard user skip to the content, switch theme, open the user menu and sign out', async () => {
+  const context = await newContext(1280);
+  const page = await signIn(context, OWNER);
+  await open(page, '/systems', 'Systems');
+  await page.keyboard.press('Tab');
+  await expect(page.evaluate(() => document.activeElement?.textContent?.trim())).resolves.toBe(
+    'Skip to content',
+  );
+  await page.keyboard.press('Enter');
+  await expect(page.evaluate(() => document.activeElement?.id)).resolves.toBe('main');
+
+  await page.getByRole('button', { name: 'Switch to dark theme' }).focus();
+  await page.keyboard.press('Enter');
+  await page.waitForFunction(() => document.documentElement.classList.contains('cw-dark'));
+  await page.getByRole('button', { name: 'Switch to light theme' }).waitFor();
+
+  await page.getByRole('button', { name: 'User menu' }).focus();
+  await page.keyboard.press('Enter');
+  await page.getByRole('menuitem', { name: 'Sign out' }).waitFor();
+  await page.keyboard.press('Enter');
+  await page.waitForURL(/sign-in/);
+  await context.close();
+});
+
+it('reaches every navigation link by Tab, each with a visible focus ring', async () => {
+  const context = await newContext(1280);
+  const page = await signIn(context, ADMIN);
+  await open(page, '/systems', 'Systems');
+  const reached = new Map<string, boolean>();
+  for (let step = 0; step < 12; step++) {
+    await page.keyboard.press('Tab');
+    const focused = await page.evaluate(() => {
+      const el = document.activeElement as HTMLElement | null;
+      if (!el?.classList.contains('nav-link')) return null;
+      const style = getComputedStyle(el);
+      return {
+        name: el.querySelector('span')?.textContent?.trim() ?? '',
+        ringed: style.outlineStyle !== 'none',
+      };
+    });
+    if (focused) reached.set(focused.name, focused.ringed);
+  }
+  await context.close();
+  expect(Object.fromEntries(reached)).toEqual(
+    expect.objectContaining({ Systems: true, 'Shared with me': true, 'Installer tools': true, Team: true }),
+  );
+});
