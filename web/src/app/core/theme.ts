@@ -1,6 +1,8 @@
 import { DOCUMENT, Injectable, effect, inject, signal } from '@angular/core';
 
 const STORAGE_KEY = 'cellwarden.theme';
+// The browser's own bar follows the theme: night indigo by day, the dark theme's surface (neutral tone 6) at night.
+const BAR_COLOUR: Record<ThemeMode, string> = { light: '#2a266f', dark: '#131317' };
 
 /** The colour scheme: light, or dark for living spaces at night. */
 export type ThemeMode = 'light' | 'dark';
@@ -34,5 +36,6 @@ export class Theme {
     const root = this.document.documentElement;
     root.classList.toggle('cw-dark', mode === 'dark');
     root.classList.toggle('cw-light', mode === 'light');
+    this.document.querySelector('meta[name="theme-color"]')?.setAttribute('content', BAR_COLOUR[mode]);
   }
 }
