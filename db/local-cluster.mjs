@@ -11,6 +11,7 @@ import {
   rmSync,
   writeFileSync,
   chmodSync,
+  statSync,
 } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 
@@ -207,8 +208,21 @@ export function destroyCluster(cluster) {
   rmSync(cluster.logFile, { force: true });
 }
 
-/** Makes the data folder's parent traversable by the service user. */
+/**
+ * Makes the data folder traversable by the service user. As root, the folders above it get search permission
+ * for others where they lack it (execute only, never read: nothing in them can be listed), since a project
+ * checked out under a private folder such as /root or a `mktemp -d` folder is otherwise out of the
+ * `postgres` user's reach.
+ */
 export function prepareDataRoot(path) {
   mkdirSync(path, { recursive: true });
   chmodSync(path, 0o755);
+  if (!isRoot) return;
+  for (let dir = dirname(resolve(path)); dir !== dirname(dir); dir = dirname(dir)) {
+    const mode = statSync(dir).mode;
+    if ((mode & 0o001) === 0) {
+      console.log(`Letting the postgres user pass through ${dir} (search permission only)`);
+      chmodSync(dir, (mode & 0o7777) | 0o001);
+    }
+  }
 }
