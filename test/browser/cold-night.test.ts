@@ -1,9 +1,9 @@
 import { connectAsync, type MqttClient } from 'mqtt';
 import { join } from 'node:path';
-import request from 'supertest';
 import { encodeReadingPack, readingsTopic, type BatteryReading } from '@cellwarden/shared';
 import demo from '../../db/seeders/demo-sign-ins.json';
 import { startTestServer } from '../support/test-server';
+import { ownerSystems, startBrowserNode } from './browser-node';
 import { launchChromium } from './launch-chromium';
 
 // The van dweller's night, in a real browser at phone width and in the dark theme: readings arrive over
@@ -17,15 +17,8 @@ let vanId: string;
 const [van] = demo.devices;
 
 beforeAll(async () => {
-  node = await startTestServer({ webDist: join(__dirname, '..', '..', 'dist', 'web', 'browser') });
-  chromium = await launchChromium();
-  const signIn = await request(node.baseUrl)
-    .post('/api/auth/sign-in')
-    .send({ email: demo.users[0].email, password: demo.password });
-  const systems = await request(node.baseUrl)
-    .get('/api/systems')
-    .set('Authorization', `Bearer ${signIn.body.accessToken}`);
-  vanId = systems.body.systems.find((s: { kind: string }) => s.kind === 'van').id;
+  ({ node, chromium } = await startBrowserNode());
+  vanId = (await ownerSystems(node.baseUrl)).van.id;
   device = await connectAsync(node.mqttUrl, {
     username: van.id,
     password: van.secret,

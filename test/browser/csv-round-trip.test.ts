@@ -1,10 +1,9 @@
 import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import type { Page } from 'playwright-core';
-import request from 'supertest';
 import demo from '../../db/seeders/demo-sign-ins.json';
 import { createReadingsRepository } from '../../server/src/telemetry/readings-repository';
 import { startTestServer } from '../support/test-server';
+import { ownerSystems, startBrowserNode } from './browser-node';
 import { launchChromium } from './launch-chromium';
 
 // Real Chromium against a real node: the owner exports the van's last hour through the dashboard, imports
@@ -18,16 +17,10 @@ let cabinId: string;
 const READINGS = 60;
 
 beforeAll(async () => {
-  node = await startTestServer({ webDist: join(__dirname, '..', '..', 'dist', 'web', 'browser') });
-  chromium = await launchChromium();
-  const signIn = await request(node.baseUrl)
-    .post('/api/auth/sign-in')
-    .send({ email: demo.users[0].email, password: demo.password });
-  const systems = await request(node.baseUrl)
-    .get('/api/systems')
-    .set('Authorization', `Bearer ${signIn.body.accessToken}`);
-  vanId = systems.body.systems.find((s: { kind: string }) => s.kind === 'van').id;
-  cabinId = systems.body.systems.find((s: { kind: string }) => s.kind === 'cabin').id;
+  ({ node, chromium } = await startBrowserNode());
+  const systems = await ownerSystems(node.baseUrl);
+  vanId = systems.van.id;
+  cabinId = systems.cabin.id;
   // One reading every 45 s over most of the van's last hour, as its monitor would have sent them.
   const end = Math.floor(Date.now() / 1000) * 1000 - 60_000;
   await createReadingsRepository(node.database).insertBatch(

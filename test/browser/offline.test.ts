@@ -1,10 +1,10 @@
-import { join } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import { connectAsync, type MqttClient } from 'mqtt';
 import request from 'supertest';
 import { encodeReadingPack, readingsTopic } from '@cellwarden/shared';
 import demo from '../../db/seeders/demo-sign-ins.json';
 import { startTestServer } from '../support/test-server';
+import { ownerSystems, startBrowserNode } from './browser-node';
 import { launchChromium } from './launch-chromium';
 
 // People in vans and boats lose signal: an installed dashboard still opens, with the last values it
@@ -18,15 +18,8 @@ let van: { id: string; name: string };
 const [vanDevice] = demo.devices;
 
 beforeAll(async () => {
-  node = await startTestServer({ webDist: join(__dirname, '..', '..', 'dist', 'web', 'browser') });
-  chromium = await launchChromium();
-  const signIn = await request(node.baseUrl)
-    .post('/api/auth/sign-in')
-    .send({ email: demo.users[0].email, password: demo.password });
-  const systems = await request(node.baseUrl)
-    .get('/api/systems')
-    .set('Authorization', `Bearer ${signIn.body.accessToken}`);
-  van = systems.body.systems.find((s: { kind: string }) => s.kind === 'van');
+  ({ node, chromium } = await startBrowserNode());
+  van = (await ownerSystems(node.baseUrl)).van;
   device = await connectAsync(node.mqttUrl, {
     username: vanDevice.id,
     password: vanDevice.secret,
