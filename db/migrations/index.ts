@@ -10,6 +10,7 @@ import { alterReadingsKey } from './2026.12.02T08.00.00.alter-readings-key';
 import { createSignInSessions } from './2026.12.03T09.00.00.create-sign-in-sessions';
 import { alterRollups } from './2026.12.03T12.50.00.alter-rollups';
 import { alterGrantsEmail } from './2026.12.03T13.20.00.alter-grants-email';
+import { createBatteryHealth } from './2026.12.03T16.10.00.create-battery-health';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
 export const migrations: Migration[] = [
@@ -24,4 +25,5 @@ export const migrations: Migration[] = [
   createSignInSessions,
   alterRollups,
   alterGrantsEmail,
+  createBatteryHealth,
 ];
