@@ -46,6 +46,7 @@ export {
 } from './telemetry/readings-csv';
 export * from './analytics/index';
 export * from './installer/index';
+export * from './health/index';
 export type * from './api/accounts-contract';
 export { MAX_PASSWORD_BYTES, MIN_PASSWORD_LENGTH } from './api/accounts-contract';
 export type * from './api/access-contract';
@@ -54,3 +55,5 @@ export type * from './api/stream-contract';
 export { MAX_STREAM_SUBSCRIPTIONS, STREAM_CLOSE } from './api/stream-contract';
 export type * from './api/settings-contract';
 export type * from './api/installer-contract';
+export type * from './api/battery-health-contract';
+export { HEALTH_REPORT_MAX_DAYS } from './api/battery-health-contract';
