@@ -12,6 +12,7 @@ import { toCheckResult } from '../../server/src/installer/commissioning-service'
 import { createReadingsRepository } from '../../server/src/telemetry/readings-repository';
 import { SCENARIOS, SCENARIO_SUMMARIES } from '../../simulator/src/scenario-catalog';
 import { simulateReadings } from '../../simulator/src/simulate-readings';
+import { localHour } from '../../simulator/src/local-time';
 import demo from './demo-sign-ins.json';
 
 // An invented fleet for the demo's installer company: every owner, boat, van and cabin here is fictional.
@@ -147,9 +148,18 @@ async function seedSilentMonitor(
   });
 }
 
+/** The engine of the workshop scenarios starts on each local hour: a check started five minutes later sees it run. */
+function fiveMinutesIntoAnEngineRun(around: number, longitude: number): number {
+  const intoHour = localHour(around, longitude) % 1;
+  return around + ((1 - intoHour) % 1) * 3_600_000 + 5 * 60_000;
+}
+
 /** A DC-DC check run two days ago on the thin-cable install, with the verdict the shared analysis gives. */
 async function seedFailedCheck(sequelize: Sequelize, systemId: string, installerId: string, now: number) {
-  const startedAt = now - 2 * 86400_000;
+  const startedAt = fiveMinutesIntoAnEngineRun(
+    now - 2 * 86400_000,
+    SCENARIOS['thin-cable'].location.longitude,
+  );
   const request = { sourceId: 'dcdc', ratedCurrentA: 60, windowSeconds: 300, gauge: '14', oneWayLengthM: 3 };
   let state = startCommissioning({ ...request, measureSeconds: 60 } as never);
   const readings = simulateReadings(SCENARIOS['thin-cable'], {

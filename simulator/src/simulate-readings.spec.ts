@@ -1,5 +1,6 @@
 import { CHEMISTRY_PROFILES, validateReading } from '@cellwarden/shared';
-import { SCENARIO_SUMMARIES, SCENARIOS } from './scenario-catalog';
+import { ENGINE_RUNS, SCENARIO_SUMMARIES, SCENARIOS } from './scenario-catalog';
+import { localHour, withinWindows } from './local-time';
 import { simulateReadings } from './simulate-readings';
 
 const options = { seed: 7, start: Date.UTC(2026, 0, 10, 18), intervalSeconds: 60, count: 12 * 60 };
@@ -58,21 +59,33 @@ describe('simulateReadings', () => {
     for (const t of bulk) expect(t.sources.dcdc.current).toBeCloseTo(30, 6);
   });
 
-  it('holds the commissioning charger at its 60 A rating in bulk for minutes', () => {
+  it('holds the commissioning charger at its 60 A rating in bulk while the engine runs, and nothing while it rests', () => {
     const rating = SCENARIO_SUMMARIES.find((s) => s.name === 'charger-commissioning')?.chargeSources[0];
     expect(rating).toEqual({ id: 'dcdc', kind: 'dcdc', ratedCurrent: 60 });
-    const { readings, truth } = play('charger-commissioning', { count: 30 });
-    expect(truth.every((t) => t.sources.dcdc.stage === 'bulk')).toBe(true);
-    for (const r of readings) expect(r.sourceCurrents?.dcdc).toBeCloseTo(60, 0);
+    const { readings, truth } = play('charger-commissioning', { count: 120 });
+    const { longitude } = SCENARIOS['charger-commissioning'].location;
+    const running = readings.map((r) => withinWindows(ENGINE_RUNS, localHour(r.measuredAt, longitude)));
+    expect(running.filter(Boolean).length).toBeGreaterThan(80);
+    expect(running.filter((r) => !r).length).toBeGreaterThan(20);
+    truth.forEach((t, i) => expect(t.sources.dcdc.stage).toBe(running[i] ? 'bulk' : 'off'));
+    readings.forEach((r, i) => expect(r.sourceCurrents?.dcdc).toBeCloseTo(running[i] ? 60 : 0, 0));
+  });
+
+  it('keeps the commissioning pack in the middle for days, so the DC-DC check finds bulk whenever the engine runs', () => {
+    const { trueStateOfCharge } = play('charger-commissioning', { count: 4 * 24 * 60 });
+    expect(Math.min(...trueStateOfCharge)).toBeGreaterThan(35);
+    expect(Math.max(...trueStateOfCharge)).toBeLessThan(85);
   });
 
   it('gives less than the rating through the thin cable and drops more voltage than the commissioning install', () => {
+    // Ten minutes in, 18:10 UTC is 18:30 local mean time at 5.1° E: both engines are running.
     const drop = (name: string) => {
-      const t = play(name, { count: 30 }).truth[29];
+      const t = play(name, { count: 30 }).truth[10];
       return { current: t.sources.dcdc.current, drop: t.sources.dcdc.outputVoltage - t.busVoltage };
     };
     const good = drop('charger-commissioning');
     const thin = drop('thin-cable');
+    expect(good.current).toBeCloseTo(60, 0);
     expect(thin.current).toBeLessThan(0.6 * 60);
     expect(thin.drop).toBeGreaterThan(2 * good.drop);
     expect(thin.drop).toBeGreaterThan(0.5);
@@ -100,12 +113,16 @@ describe('simulateReadings', () => {
   });
 
   it('balances: the integral of pack current equals the change of stored charge', () => {
-    // Charge conservation (general reference): Σ I·η·Δt = ΔSoC × capacity, at the workshop's steady 20 °C.
-    const { truth } = play('charger-commissioning', { count: 60, intervalSeconds: 60 });
+    // Charge conservation (general reference): Σ I·η·Δt = ΔSoC × capacity, at the workshop's steady 20 °C, over
+    // 40 minutes of one engine run (17:40 UTC is 18:00 local mean time at 5.1° E), when the pack only charges.
+    const efficiency = CHEMISTRY_PROFILES.lifepo4.chargeEfficiency;
+    const start = Date.UTC(2026, 0, 10, 17, 40);
+    const { truth } = play('charger-commissioning', { start, count: 40, intervalSeconds: 60 });
+    expect(truth.every((t) => t.packCurrent > 0)).toBe(true);
     const integralAh = truth
       .slice(1)
-      .reduce((sum, t) => sum + (t.packCurrent * CHEMISTRY_PROFILES.lifepo4.chargeEfficiency) / 60, 0);
-    const deltaAh = ((truth[59].stateOfCharge - truth[0].stateOfCharge) / 100) * 200;
+      .reduce((sum, t) => sum + (t.packCurrent > 0 ? t.packCurrent * efficiency : t.packCurrent) / 60, 0);
+    const deltaAh = ((truth[39].stateOfCharge - truth[0].stateOfCharge) / 100) * 200;
     expect(deltaAh).toBeCloseTo(integralAh, 1);
   });
 
