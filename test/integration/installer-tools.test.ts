@@ -3,11 +3,10 @@ import request from 'supertest';
 import { encodeReadingPack, readingsTopic } from '@cellwarden/shared';
 import demo from '../../db/seeders/demo-sign-ins.json';
 import { extractPdfText } from '../../server/src/records/pdf-text-reader';
-import { SCENARIOS } from '../../simulator/src/scenario-catalog';
-import { simulateReadings } from '../../simulator/src/simulate-readings';
 import { pngSize } from '../support/crafted-images';
 import { signInAs, until } from '../support/http-session';
 import { startTestServer } from '../support/test-server';
+import { workshopReadings } from '../support/workshop-readings';
 
 // The installer's tools end to end: a commissioning check watching real simulated readings over MQTT, a photo
 // upload, the PDF record (downloaded and e-mailed to the owner), and a saved energy budget compared with the
@@ -57,7 +56,7 @@ function auth() {
 }
 
 /** Runs a check while the scenario's readings (the last two minutes, one a second) arrive; returns it finished. */
-async function runCheck(scenario: string) {
+async function runCheck(scenario: 'charger-commissioning' | 'thin-cable') {
   const started = await request(node.baseUrl)
     .post(`/api/systems/${vanId}/commissioning-checks`)
     .set(auth())
@@ -70,12 +69,7 @@ async function runCheck(scenario: string) {
     });
   expect(started.status).toBe(201);
   expect(started.body.check).toMatchObject({ status: 'running', progress: { phase: 'waiting-for-current' } });
-  const { readings } = simulateReadings(SCENARIOS[scenario], {
-    seed: 7,
-    start: Date.now() - 120_000,
-    intervalSeconds: 1,
-    count: 110,
-  });
+  const readings = workshopReadings(scenario);
   for (let i = 0; i < readings.length; i += 20)
     await device.publishAsync(
       readingsTopic(van.id),
