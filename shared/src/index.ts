@@ -55,5 +55,7 @@ export type * from './api/stream-contract';
 export { MAX_STREAM_SUBSCRIPTIONS, STREAM_CLOSE } from './api/stream-contract';
 export type * from './api/settings-contract';
 export type * from './api/installer-contract';
+export type * from './api/install-register-contract';
+export { COMPONENT_KINDS } from './api/install-register-contract';
 export type * from './api/battery-health-contract';
 export { HEALTH_REPORT_MAX_DAYS } from './api/battery-health-contract';

@@ -87,6 +87,13 @@ const CATALOGUE: Readonly<Record<FlagKind, FlagDescription>> = {
     whatToDo:
       'Charge the battery fully once so both can re-sync; check the battery capacity entered for this system.',
   },
+  'circuit-near-rating': {
+    title: 'A circuit’s current is near or over a rating',
+    meaning:
+      'A current the monitor measured on a registered circuit reached 80 % or more of its fuse, its conductor or the BMS rating (critical once over it). The install register says which circuit and which rating.',
+    whatToDo:
+      'Spread heavy loads over time, and have the circuit’s conductor and fuse checked against the loads by a qualified installer, following local codes and the manufacturers’ instructions. Never fit a larger fuse than the conductor allows.',
+  },
 };
 
 /** The plain-words description of a flag kind. */

@@ -18,6 +18,7 @@ export const FLAG_KINDS = [
   'device-silent',
   'charger-under-delivering',
   'soc-disagreement',
+  'circuit-near-rating',
 ] as const satisfies readonly FlagKind[];
 
 // Fails to compile if the contract gains a kind this list lacks.

@@ -205,8 +205,10 @@ const socDisagreement: FlagRule = ({ estimate, settings }) => {
   };
 };
 
-/** The rule for each kind judged on a reading (device silence is judged by the clock instead). */
-export const FLAG_RULES: Readonly<Record<Exclude<FlagKind, 'device-silent'>, FlagRule>> = {
+/** The rule for each kind judged on a reading (device silence is judged by the clock, circuit ratings by the install register). */
+export const FLAG_RULES: Readonly<
+  Record<Exclude<FlagKind, 'device-silent' | 'circuit-near-rating'>, FlagRule>
+> = {
   'low-charge': lowCharge,
   'low-voltage': lowVoltage,
   'cold-charging': coldCharging,

@@ -68,6 +68,8 @@ const MINIMUM_DURATION_SECONDS: Record<FlagKind, number> = {
   // Chargers ramp up over minutes and DC-DC units derate when hot: only a sustained shortfall counts.
   'charger-under-delivering': 600,
   'soc-disagreement': 600,
+  // Judged by the install register over a window of readings (server/src/install-register), not per reading.
+  'circuit-near-rating': 0,
 };
 
 // Conditions that lapse briefly in normal use (a load switching on, a cloud) must stay clear this long before

@@ -13,7 +13,8 @@ export type FlagKind =
   | 'bms-cutoff-suspected'
   | 'device-silent'
   | 'charger-under-delivering'
-  | 'soc-disagreement';
+  | 'soc-disagreement'
+  | 'circuit-near-rating';
 
 /** How urgent a flag is. */
 export type FlagSeverity = 'warning' | 'critical';

@@ -86,3 +86,20 @@ export {
   analyzeCommissioning,
   commissioningResult,
 } from './commissioning-analysis';
+export type { RegisterSystem } from './install-register';
+export {
+  checkedAwgOf,
+  componentCurrentA,
+  judgeCircuit,
+  registerBudgetInput,
+  registeredSourceRatingA,
+  ruleOfFinding,
+} from './install-register';
+export type { CircuitRatings, DesignComparison, MeasuredCurrent } from './design-vs-measured';
+export {
+  CLOSE_TO_RATING_FRACTION,
+  PEAK_BAND_FRACTION,
+  compareWithRatings,
+  nearestRankPercentile,
+  peakDurationSeconds,
+} from './design-vs-measured';
