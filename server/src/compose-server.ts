@@ -34,6 +34,7 @@ import type { Config } from './config';
 import { connectDatabase } from './database/connect-database';
 import { createDevicesRepository } from './devices/devices-repository';
 import { createDevicesService } from './devices/devices-service';
+import { startBatteryHealth } from './battery-health/battery-health-component';
 import { createBatchWriter } from './ingest/batch-writer';
 import { createIngestService } from './ingest/ingest-service';
 import type { Logger } from './logger';
@@ -195,6 +196,14 @@ export async function startServer(
     }),
     budgets: createEnergyBudgetsService({ sequelize, systems, readings: readingsRepository, now }),
   });
+  const batteryHealth = startBatteryHealth({
+    sequelize,
+    systems,
+    settings: settingsRepository,
+    audit,
+    logger,
+    now,
+  });
   const devicesRepository = createDevicesRepository(sequelize);
   const writer = createBatchWriter({
     repository: readingsRepository,
@@ -281,6 +290,7 @@ export async function startServer(
       createAlertsRoutes({ alerts, systems, analytics }),
       createSettingsRoutes(settings),
       installerRoutes,
+      batteryHealth.routes,
     ],
     corsOrigins: config.CORS_ORIGINS.split(',')
       .map((o) => o.trim())
@@ -308,6 +318,7 @@ export async function startServer(
     mailCatcher,
     async stop() {
       clearInterval(silenceSweep);
+      await batteryHealth.stop();
       checks.close();
       stopAccessSignal();
       stream.close();

@@ -32,7 +32,8 @@ export function renderCommissioningRecord(
   return done;
 }
 
-function numberPages(doc: PDFKit.PDFDocument): void {
+/** "Page n of m" at the foot of every buffered page. */
+export function numberPages(doc: PDFKit.PDFDocument): void {
   const { start, count } = doc.bufferedPageRange();
   for (let index = start; index < start + count; index++) {
     doc.switchToPage(index);
@@ -51,7 +52,8 @@ function numberPages(doc: PDFKit.PDFDocument): void {
   }
 }
 
-function collect(doc: PDFKit.PDFDocument): Promise<Buffer> {
+/** The document's bytes once it has ended. */
+export function collect(doc: PDFKit.PDFDocument): Promise<Buffer> {
   return new Promise((resolve, reject) => {
     const chunks: Buffer[] = [];
     doc.on('data', (chunk: Buffer) => chunks.push(chunk));

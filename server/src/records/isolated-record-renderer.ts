@@ -28,6 +28,15 @@ const WORKER_ENTRY = path.join(__dirname, 'record-render-worker.cjs');
  * while the server goes on. A small queue keeps simultaneous renders from multiplying the memory bound.
  */
 export function createRecordRenderer(limits: RecordRenderLimits = {}): RecordRenderer {
+  return createIsolatedPdfRenderer<CommissioningRecordInput>(WORKER_ENTRY, 'commissioning record', limits);
+}
+
+/** The same isolation for any PDF whose worker entry posts the bytes back (`what` names it in errors). */
+export function createIsolatedPdfRenderer<T>(
+  workerEntry: string,
+  what: string,
+  limits: RecordRenderLimits = {},
+): { render(input: T): Promise<Buffer> } {
   const timeoutMs = limits.timeoutMs ?? 20_000;
   const heapMb = limits.heapMb ?? 128;
   const maxRunning = limits.maxRunning ?? 2;
@@ -40,7 +49,7 @@ export function createRecordRenderer(limits: RecordRenderLimits = {}): RecordRen
       running++;
       return Promise.resolve();
     }
-    if (waiting.length >= maxWaiting) return Promise.reject(renderBusy());
+    if (waiting.length >= maxWaiting) return Promise.reject(renderBusy(what));
     return new Promise((resolve) => waiting.push(resolve));
   };
   const done = () => {
@@ -50,10 +59,10 @@ export function createRecordRenderer(limits: RecordRenderLimits = {}): RecordRen
   };
 
   return {
-    async render(record) {
+    async render(input) {
       await turn();
       try {
-        return await renderInThread(record, timeoutMs, heapMb);
+        return await renderInThread(workerEntry, what, input, timeoutMs, heapMb);
       } finally {
         done();
       }
@@ -62,13 +71,15 @@ export function createRecordRenderer(limits: RecordRenderLimits = {}): RecordRen
 }
 
 function renderInThread(
-  record: CommissioningRecordInput,
+  workerEntry: string,
+  what: string,
+  input: unknown,
   timeoutMs: number,
   heapMb: number,
 ): Promise<Buffer> {
   return new Promise((resolve, reject) => {
-    const worker = new Worker(WORKER_ENTRY, {
-      workerData: record,
+    const worker = new Worker(workerEntry, {
+      workerData: input,
       resourceLimits: { maxOldGenerationSizeMb: heapMb, maxYoungGenerationSizeMb: 16, stackSizeMb: 4 },
     });
     let settled = false;
@@ -80,33 +91,29 @@ function renderInThread(
       void worker.terminate();
     };
     const timer = setTimeout(
-      () => settle(() => reject(renderFailed(`it took longer than ${timeoutMs / 1000} s`))),
+      () => settle(() => reject(renderFailed(what, `it took longer than ${timeoutMs / 1000} s`))),
       timeoutMs,
     );
     worker.once('message', (bytes: Uint8Array) =>
       settle(() => resolve(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength))),
     );
-    worker.once('error', (error) => settle(() => reject(renderFailed(error.message, error))));
+    worker.once('error', (error) => settle(() => reject(renderFailed(what, error.message, error))));
     worker.once('exit', (code) =>
-      settle(() => reject(renderFailed(`the rendering thread exited with ${code}`))),
+      settle(() => reject(renderFailed(what, `the rendering thread exited with ${code}`))),
     );
   });
 }
 
-function renderFailed(reason: string, cause?: unknown): AppError {
+function renderFailed(what: string, reason: string, cause?: unknown): AppError {
   return new AppError(
     'record_render_failed',
     500,
-    `The commissioning record could not be made (${reason.slice(0, 200)}); the rest of the service is unaffected`,
+    `The ${what} could not be made (${reason.slice(0, 200)}); the rest of the service is unaffected`,
     undefined,
     { cause },
   );
 }
 
-function renderBusy(): AppError {
-  return new AppError(
-    'record_render_busy',
-    503,
-    'Too many commissioning records are being made; try again shortly',
-  );
+function renderBusy(what: string): AppError {
+  return new AppError('record_render_busy', 503, `Too many ${what}s are being made; try again shortly`);
 }
