@@ -32,8 +32,20 @@ import { startMqttBroker } from './broker/mqtt-broker';
 import { startClusterMode } from './cluster/cluster-mode';
 import type { Config } from './config';
 import { connectDatabase } from './database/connect-database';
+import { initModels } from './database/models';
 import { createDevicesRepository } from './devices/devices-repository';
 import { createDevicesService } from './devices/devices-service';
+import { createDeviceRefusals } from './broker/device-refusals';
+import { createOnboardingRepository } from './onboarding/onboarding-repository';
+import { createHandoverRoutes, createOnboardingRoutes } from './onboarding/onboarding-routes';
+import { createOnboardingService } from './onboarding/onboarding-service';
+import { createAccessRequestsRepository } from './access-requests/access-requests-repository';
+import {
+  createAccessRequestsRoutes,
+  createSystemShareRoutes,
+} from './access-requests/access-requests-routes';
+import { createAccessRequestsService } from './access-requests/access-requests-service';
+import { createShareCodeLimits } from './access-requests/share-code-limits';
 import { startBatteryHealth } from './battery-health/battery-health-component';
 import { createBatchWriter } from './ingest/batch-writer';
 import { createIngestService } from './ingest/ingest-service';
@@ -74,6 +86,7 @@ export async function startServer(
 ): Promise<RunningServer> {
   const sequelize = connectDatabase(config.DATABASE_URL);
   await migrateToLatest(sequelize, (m) => logger.debug('migration', { step: m }));
+  initModels(sequelize);
   // Cluster mode and the read replica only by configuration: without them a single machine runs as ever.
   const cluster = config.REDIS_URL ? await startClusterMode(config.REDIS_URL, logger) : undefined;
   const reader = config.DATABASE_READ_URL ? connectDatabase(config.DATABASE_READ_URL) : undefined;
@@ -110,7 +123,11 @@ export async function startServer(
   const invitations = createInvitationsService({
     ...linkDeps,
     sessions: accounts,
-    onAccountCreated: (email, userId) => grantsRepository.attachWaiting(email, userId),
+    onAccountCreated: async (email, userId) => {
+      await grantsRepository.attachWaiting(email, userId);
+      // Systems an installer set up for this address become the new account's (onboarding).
+      await acceptWaitingSystems(email, userId);
+    },
   });
   const passwordReset = createPasswordResetService({ ...linkDeps, sessions });
 
@@ -121,6 +138,7 @@ export async function startServer(
   });
   const audit = createAuditService({ repository: createAuditRepository(sequelize), systems, logger });
   let onAccessRevoked: (systemId: string) => void = () => undefined;
+  let acceptWaitingSystems: (email: string, userId: string) => Promise<void> = async () => undefined;
   const grants = createGrantsService({
     repository: grantsRepository,
     accounts: accountsRepository,
@@ -226,7 +244,7 @@ export async function startServer(
             message: {
               type: 'reading',
               systemId: row.systemId,
-              reading: { ...row.reading, receivedAt },
+              reading: { ...row.reading, receivedAt, deviceId: row.deviceId },
               derived,
             },
           }),
@@ -236,16 +254,28 @@ export async function startServer(
         .catch((error) => logger.warn('last seen not updated', { error: String(error) }));
     },
   });
-  const ingest = createIngestService({ writer, logger, now });
+  // Why the broker refused each monitor, for the onboarding screen (bounded; this node's counts).
+  const refusals = createDeviceRefusals({ now });
+  const ingest = createIngestService({
+    writer,
+    logger,
+    now,
+    onRefused: (deviceId, code) =>
+      refusals.count(deviceId, code === 'foreign_topic' ? 'topic' : 'payload', code),
+  });
   let mqttPort = 0;
   const devices = createDevicesService({
     repository: devicesRepository,
     systems,
     audit,
     brokerPort: () => mqttPort,
-    onCredentialsChanged: (deviceId) => brokerPolicy.credentialsChanged(deviceId),
+    brokerUrl: () => brokerUrl,
+    onCredentialsChanged: (deviceId) => {
+      brokerPolicy.credentialsChanged(deviceId);
+      refusals.forget(deviceId);
+    },
   });
-  const brokerPolicy = createBrokerPolicy({ devices, ingest, logger });
+  const brokerPolicy = createBrokerPolicy({ devices, ingest, logger, refusals });
   const broker = await startMqttBroker({
     host: config.HOST,
     port: config.MQTT_PORT,
@@ -255,10 +285,41 @@ export async function startServer(
     persistence: cluster?.broker.persistence,
   });
   mqttPort = broker.port;
+  const brokerHost = config.PUBLIC_URL ? new URL(config.PUBLIC_URL).hostname : config.HOST;
+  const brokerUrl = config.MQTT_PUBLIC_URL?.replace(/\/$/, '') ?? `mqtt://${brokerHost}:${mqttPort}`;
+  const onboarding = createOnboardingService({
+    repository: createOnboardingRepository(sequelize),
+    accounts: accountsRepository,
+    links,
+    devices: devicesRepository,
+    refusals,
+    systems,
+    audit,
+    mailer,
+    publicUrl: () => publicUrl,
+    now,
+    logger,
+    onAccessRevoked: (systemId) => onAccessRevoked(systemId),
+  });
+  acceptWaitingSystems = (email, userId) => onboarding.acceptWaiting(email, userId);
+  const accessRequests = createAccessRequestsService({
+    repository: createAccessRequestsRepository(sequelize),
+    accounts: accountsRepository,
+    systems,
+    grants,
+    audit,
+    limits: createShareCodeLimits(),
+    mailer,
+    publicUrl: () => publicUrl,
+    now,
+    logger,
+  });
 
   const signedInRouters: Record<string, Router> = { '/api/me': createPreferencesRoutes(settings) };
   // Each person sees only the captured mail addressed to them; with a real SMTP service the list is empty.
   signedInRouters['/api/dev/mail'] = createMailOutboxRoutes(mailCatcher);
+  signedInRouters['/api/handovers'] = createHandoverRoutes(onboarding);
+  signedInRouters['/api/access-requests'] = createAccessRequestsRoutes(accessRequests);
   const app = createApp({
     sequelize,
     logger,
@@ -287,9 +348,16 @@ export async function startServer(
       createReadingsCsvRoutes(
         createReadingsCsvService({ systems, repository: readingsRepository, audit, now }),
       ),
-      createAlertsRoutes({ alerts, systems, analytics }),
+      createAlertsRoutes({
+        alerts,
+        systems,
+        analytics,
+        monitors: (systemId) => devicesRepository.monitorsWithLatest(systemId),
+      }),
       createSettingsRoutes(settings),
       installerRoutes,
+      createOnboardingRoutes(onboarding),
+      createSystemShareRoutes(accessRequests),
       batteryHealth.routes,
     ],
     corsOrigins: config.CORS_ORIGINS.split(',')

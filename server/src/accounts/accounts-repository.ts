@@ -1,5 +1,6 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { CompanyListing, CompanyMember, Role } from '@cellwarden/shared';
+import { initModels } from '../database/models';
 
 /** A person who signs in, as stored. */
 export interface UserRecord {
@@ -11,67 +12,54 @@ export interface UserRecord {
   companyId: string | null;
 }
 
-const SELECT_USER = `SELECT id, email, display_name AS "displayName", password_hash AS "passwordHash",
-  roles, company_id AS "companyId" FROM users`;
+/** The columns of a UserRecord; `raw` finds return them as a plain object under these names. */
+export const USER_RECORD_ATTRIBUTES = ['id', 'email', 'displayName', 'passwordHash', 'roles', 'companyId'];
 
 /** Data access for users and companies: plain objects in, plain objects out. */
 export function createAccountsRepository(sequelize: Sequelize) {
-  const one = async <T extends object>(sql: string, replacements: Record<string, unknown>) =>
-    (await sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT }))[0];
+  const { User, Company } = initModels(sequelize);
+  const findUser = async (where: Record<string, string>) =>
+    (await User.findOne({ where, attributes: USER_RECORD_ATTRIBUTES, raw: true })) ?? undefined;
   return {
-    findByEmail: (email: string) => one<UserRecord>(`${SELECT_USER} WHERE email = :email`, { email }),
-    findById: (id: string) => one<UserRecord>(`${SELECT_USER} WHERE id = :id`, { id }),
+    findByEmail: (email: string): Promise<UserRecord | undefined> => findUser({ email }),
+    findById: (id: string): Promise<UserRecord | undefined> => findUser({ id }),
 
     async createUser(user: Omit<UserRecord, 'id'>): Promise<UserRecord> {
-      const row = await one<{ id: string }>(
-        `INSERT INTO users (email, display_name, password_hash, roles, company_id)
-         VALUES (:email, :displayName, :passwordHash, ARRAY[:roles]::text[], :companyId) RETURNING id`,
-        { ...user },
-      );
-      return { ...user, id: row!.id };
+      const created = await User.create({ ...user });
+      return { ...user, id: created.id };
     },
 
     async setPassword(userId: string, passwordHash: string): Promise<void> {
-      await sequelize.query(
-        `UPDATE users SET password_hash = :passwordHash, updated_at = now() WHERE id = :userId`,
-        {
-          replacements: { userId, passwordHash },
-        },
-      );
+      await User.update({ passwordHash }, { where: { id: userId } });
     },
 
     /** A member of this company, or undefined (someone else's member is not revealed). */
-    findMember: (companyId: string, userId: string) =>
-      one<UserRecord>(`${SELECT_USER} WHERE id = :userId AND company_id = :companyId`, { companyId, userId }),
+    findMember: (companyId: string, userId: string): Promise<UserRecord | undefined> =>
+      findUser({ id: userId, companyId }),
 
+    // Roles are the fixed role names (checked by the table's CHECK constraint too).
     async setRoles(userId: string, roles: Role[]): Promise<void> {
-      await sequelize.query(
-        `UPDATE users SET roles = :roles::text[], updated_at = now() WHERE id = :userId`,
-        // An array literal of the fixed role names (checked by the table's CHECK constraint too).
-        { replacements: { userId, roles: `{${roles.join(',')}}` } },
-      );
+      await User.update({ roles }, { where: { id: userId } });
     },
 
     /** Takes a person out of their company; `roles` are what they keep (an owner stays an owner). */
     async leaveCompany(userId: string, roles: Role[]): Promise<void> {
-      await sequelize.query(
-        `UPDATE users SET company_id = NULL, roles = :roles::text[], updated_at = now() WHERE id = :userId`,
-        { replacements: { userId, roles: `{${roles.join(',')}}` } },
-      );
+      await User.update({ companyId: null, roles }, { where: { id: userId } });
     },
 
-    listCompanies: () =>
-      sequelize.query<CompanyListing>(`SELECT id, name FROM companies ORDER BY name`, {
-        type: QueryTypes.SELECT,
-      }),
+    listCompanies: (): Promise<CompanyListing[]> =>
+      Company.findAll({ attributes: ['id', 'name'], order: [['name', 'ASC']], raw: true }),
 
-    findCompany: (id: string) => one<CompanyListing>(`SELECT id, name FROM companies WHERE id = :id`, { id }),
+    findCompany: async (id: string): Promise<CompanyListing | undefined> =>
+      (await Company.findOne({ where: { id }, attributes: ['id', 'name'], raw: true })) ?? undefined,
 
-    listMembers: (companyId: string) =>
-      sequelize.query<CompanyMember>(
-        `SELECT id, email, display_name AS "displayName", roles FROM users WHERE company_id = :companyId ORDER BY display_name`,
-        { replacements: { companyId }, type: QueryTypes.SELECT },
-      ),
+    listMembers: (companyId: string): Promise<CompanyMember[]> =>
+      User.findAll({
+        where: { companyId },
+        attributes: ['id', 'email', 'displayName', 'roles'],
+        order: [['displayName', 'ASC']],
+        raw: true,
+      }) as Promise<CompanyMember[]>,
   };
 }
 

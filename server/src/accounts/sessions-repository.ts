@@ -1,5 +1,6 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
-import type { UserRecord } from './accounts-repository';
+import { Op, fn, type Sequelize, type WhereOptions } from 'sequelize';
+import { initModels } from '../database/models';
+import { USER_RECORD_ATTRIBUTES, type UserRecord } from './accounts-repository';
 
 /** One refresh token, as stored (by hash). */
 export interface RefreshTokenRecord {
@@ -25,95 +26,85 @@ export type SessionEndReason =
  * and every access token carries it, so ending the session row ends them all.
  */
 export function createSessionsRepository(sequelize: Sequelize) {
-  const select = <T extends object>(sql: string, replacements: Record<string, unknown>) =>
-    sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+  const { SignInSession, RefreshToken, User } = initModels(sequelize);
+  // Ends sessions and revokes their tokens together, on the database's clock.
+  const end = (tokens: WhereOptions, sessions: WhereOptions, reason: SessionEndReason) =>
+    sequelize.transaction(async (transaction) => {
+      await RefreshToken.update(
+        { revokedAt: fn('now') },
+        { where: { ...tokens, revokedAt: null }, transaction },
+      );
+      await SignInSession.scope('active').update(
+        { endedAt: fn('now'), endedReason: reason },
+        { where: sessions, transaction },
+      );
+    });
   return {
     async startSession(sessionId: string, userId: string): Promise<void> {
-      await sequelize.query(`INSERT INTO sign_in_sessions (id, user_id) VALUES (:sessionId, :userId)`, {
-        replacements: { sessionId, userId },
-      });
+      await SignInSession.create({ id: sessionId, userId }, { returning: false });
     },
 
     /** The person of a session that is still open, or undefined: the one check behind every access token. */
     async openSessionUser(sessionId: string, userId: string): Promise<UserRecord | undefined> {
-      const rows = await select<UserRecord>(
-        `SELECT u.id, u.email, u.display_name AS "displayName", u.password_hash AS "passwordHash", u.roles,
-           u.company_id AS "companyId"
-         FROM sign_in_sessions s JOIN users u ON u.id = s.user_id
-         WHERE s.id = :sessionId AND s.user_id = :userId AND s.ended_at IS NULL`,
-        { sessionId, userId },
-      );
-      return rows[0];
+      const session = await SignInSession.scope('active').findOne({
+        where: { id: sessionId, userId },
+        attributes: [],
+        include: [{ model: User, as: 'user', attributes: USER_RECORD_ATTRIBUTES, required: true }],
+      });
+      return session?.user?.get({ plain: true });
     },
 
     /** Of these session ids, the ones still open (the live stream checks its sockets with one query). */
     async stillOpen(sessionIds: readonly string[]): Promise<Set<string>> {
       if (sessionIds.length === 0) return new Set();
-      const rows = await select<{ id: string }>(
-        `SELECT id FROM sign_in_sessions WHERE id = ANY(ARRAY[:sessionIds]::uuid[]) AND ended_at IS NULL`,
-        { sessionIds: [...sessionIds] },
-      );
+      const rows = await SignInSession.scope('active').findAll({
+        where: { id: [...sessionIds] },
+        attributes: ['id'],
+        raw: true,
+      });
       return new Set(rows.map((r) => r.id));
     },
 
     async insert(token: { tokenHash: string; familyId: string; userId: string; expiresAt: Date }) {
-      await sequelize.query(
-        `INSERT INTO refresh_tokens (token_hash, family_id, user_id, expires_at)
-         VALUES (:tokenHash, :familyId, :userId, :expiresAt)`,
-        { replacements: token },
-      );
+      await RefreshToken.create(token, { returning: false });
     },
 
     /** Marks the token rotated, once: only one of two concurrent refreshes with the same token wins. */
     async claimForRotation(tokenHash: string): Promise<RefreshTokenRecord | undefined> {
-      const rows = await sequelize.query<RefreshTokenRecord>(
-        `UPDATE refresh_tokens SET rotated_at = now()
-         WHERE token_hash = :tokenHash AND rotated_at IS NULL AND revoked_at IS NULL AND expires_at > now()
-         RETURNING token_hash AS "tokenHash", family_id AS "familyId", user_id AS "userId",
-           expires_at AS "expiresAt", rotated_at AS "rotatedAt", revoked_at AS "revokedAt"`,
-        { replacements: { tokenHash }, type: QueryTypes.SELECT },
+      const [, rows] = await RefreshToken.scope('active').update(
+        { rotatedAt: fn('now') },
+        { where: { tokenHash, rotatedAt: null }, returning: true },
       );
-      return rows[0];
+      const row = rows[0]?.get({ plain: true });
+      return (
+        row && {
+          tokenHash: row.tokenHash,
+          familyId: row.familyId,
+          userId: row.userId,
+          expiresAt: row.expiresAt,
+          rotatedAt: row.rotatedAt,
+          revokedAt: row.revokedAt,
+        }
+      );
     },
 
     async findFamily(tokenHash: string): Promise<string | undefined> {
-      const rows = await select<{ familyId: string }>(
-        `SELECT family_id AS "familyId" FROM refresh_tokens WHERE token_hash = :tokenHash`,
-        { tokenHash },
-      );
-      return rows[0]?.familyId;
+      const row = await RefreshToken.findOne({ where: { tokenHash }, attributes: ['familyId'], raw: true });
+      return row?.familyId;
     },
 
     /** Ends one session: its refresh tokens and (through the session row) its access tokens. */
     async endSession(sessionId: string, reason: SessionEndReason): Promise<void> {
-      await sequelize.transaction(async (transaction) => {
-        await sequelize.query(
-          `UPDATE refresh_tokens SET revoked_at = now() WHERE family_id = :sessionId AND revoked_at IS NULL`,
-          { replacements: { sessionId }, transaction },
-        );
-        await sequelize.query(
-          `UPDATE sign_in_sessions SET ended_at = now(), ended_reason = :reason
-           WHERE id = :sessionId AND ended_at IS NULL`,
-          { replacements: { sessionId, reason }, transaction },
-        );
-      });
+      await end({ familyId: sessionId }, { id: sessionId }, reason);
     },
 
     /** Ends every session of a person, except `keep` (the one that asked, after a password change). */
     async endAllForUser(userId: string, reason: SessionEndReason, keep?: string): Promise<void> {
-      const replacements = { userId, reason, keep: keep ?? null };
-      await sequelize.transaction(async (transaction) => {
-        await sequelize.query(
-          `UPDATE refresh_tokens SET revoked_at = now()
-           WHERE user_id = :userId AND revoked_at IS NULL AND family_id IS DISTINCT FROM :keep::uuid`,
-          { replacements, transaction },
-        );
-        await sequelize.query(
-          `UPDATE sign_in_sessions SET ended_at = now(), ended_reason = :reason
-           WHERE user_id = :userId AND ended_at IS NULL AND id IS DISTINCT FROM :keep::uuid`,
-          { replacements, transaction },
-        );
-      });
+      await end(
+        keep ? { userId, familyId: { [Op.ne]: keep } } : { userId },
+        keep ? { userId, id: { [Op.ne]: keep } } : { userId },
+        reason,
+      );
     },
   };
 }

@@ -1,25 +1,37 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { Op, fn, literal, type Sequelize } from 'sequelize';
 import type { AuditAction, AuditEntry } from '@cellwarden/shared';
+import { epochMs } from '../database/sql-values';
+import { initModels } from '../database/models';
 
 /** Data access for the audit trail. */
 export function createAuditRepository(sequelize: Sequelize) {
+  const { AuditEntry: Entry, User } = initModels(sequelize);
   return {
     async insert(entry: { systemId: string; actorId: string | null; action: AuditAction; detail: string }) {
-      await sequelize.query(
-        `INSERT INTO audit_entries (system_id, actor_id, action, detail) VALUES (:systemId, :actorId, :action, :detail)`,
-        { replacements: entry },
-      );
+      await Entry.create(entry, { returning: false });
     },
-    list: (systemId: string, limit: number, before: number | null) =>
-      sequelize.query<AuditEntry>(
-        `SELECT a.id::text AS id, (extract(epoch FROM a.at) * 1000)::float8 AS at, a.action, a.detail,
-           CASE WHEN u.id IS NULL THEN NULL
-             ELSE json_build_object('id', u.id, 'displayName', u.display_name, 'email', u.email) END AS actor
-         FROM audit_entries a LEFT JOIN users u ON u.id = a.actor_id
-         WHERE a.system_id = :systemId AND (:before::float8 IS NULL OR a.at < to_timestamp(:before::float8 / 1000.0))
-         ORDER BY a.at DESC, a.id DESC LIMIT :limit`,
-        { replacements: { systemId, limit, before }, type: QueryTypes.SELECT },
-      ),
+    async list(systemId: string, limit: number, before: number | null): Promise<AuditEntry[]> {
+      const rows = await Entry.findAll({
+        where: {
+          systemId,
+          // Paging by the API's millisecond time, compared in the database at full (microsecond) precision.
+          ...(before === null ? {} : { at: { [Op.lt]: fn('to_timestamp', before / 1000) } }),
+        },
+        // `at` in milliseconds with its microseconds kept (a JS Date would drop them, and the next page's
+        // `before` would skip entries written within the same millisecond).
+        attributes: ['id', [literal(epochMs('"AuditEntry"."at"')), 'at'], 'action', 'detail'],
+        include: [{ model: User, as: 'actor', attributes: ['id', 'displayName', 'email'] }],
+        order: [
+          ['at', 'DESC'],
+          ['id', 'DESC'],
+        ],
+        limit,
+      });
+      return rows.map((row) => {
+        const { id, at, action, detail, actor } = row.get({ plain: true }) as unknown as AuditEntry;
+        return { id, at, action, detail, actor: actor ?? null };
+      });
+    },
   };
 }
 

@@ -5,6 +5,7 @@ import type {
   SystemSettings,
   UserPreferences,
 } from '@cellwarden/shared';
+import { initModels } from '../database/models';
 
 /** A system's settings as stored; thresholds hold only what the owner overrode. */
 export interface StoredSettings extends Omit<SystemSettings, 'thresholds' | 'thresholdDefaults'> {
@@ -46,6 +47,7 @@ const toSettings = (row: SettingsRow): StoredSettings => ({
 
 /** Data access for system settings and personal preferences. */
 export function createSettingsRepository(sequelize: Sequelize) {
+  const { UserPreference } = initModels(sequelize);
   return {
     async find(systemId: string): Promise<StoredSettings | undefined> {
       const [row] = await sequelize.query<SettingsRow>(
@@ -83,32 +85,20 @@ export function createSettingsRepository(sequelize: Sequelize) {
     },
 
     async preferences(userId: string): Promise<UserPreferences> {
-      const [row] = await sequelize.query<UserPreferences>(
-        `SELECT temperature_unit AS "temperatureUnit", email_flags AS "emailFlags" FROM user_preferences WHERE user_id = :userId`,
-        { replacements: { userId }, type: QueryTypes.SELECT },
-      );
+      const row = await UserPreference.findOne({
+        where: { userId },
+        attributes: ['temperatureUnit', 'emailFlags'],
+        raw: true,
+      });
       return row ?? { temperatureUnit: 'C', emailFlags: ['low-charge', 'cold-charging', 'device-silent'] };
     },
 
     async savePreferences(userId: string, preferences: UserPreferences): Promise<void> {
-      await sequelize.query(
-        `INSERT INTO user_preferences (user_id, temperature_unit, email_flags)
-         VALUES (:userId, :temperatureUnit, ARRAY[:emailFlags]::text[])
-         ON CONFLICT (user_id) DO UPDATE SET temperature_unit = excluded.temperature_unit,
-           email_flags = excluded.email_flags, updated_at = now()`,
-        {
-          replacements: {
-            userId,
-            temperatureUnit: preferences.temperatureUnit,
-            // ARRAY[] of nothing is untyped; an empty opt-in list is stored as such.
-            emailFlags: preferences.emailFlags.length > 0 ? preferences.emailFlags : [null],
-          },
-        },
+      // An empty opt-in list is stored as such (an empty text[]).
+      await UserPreference.upsert(
+        { userId, temperatureUnit: preferences.temperatureUnit, emailFlags: preferences.emailFlags },
+        { returning: false },
       );
-      if (preferences.emailFlags.length === 0)
-        await sequelize.query(`UPDATE user_preferences SET email_flags = '{}' WHERE user_id = :userId`, {
-          replacements: { userId },
-        });
     },
   };
 }

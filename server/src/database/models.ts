@@ -1,0 +1,64 @@
+// The one place the Sequelize models are bound to a connection and associated. The schema comes only from
+// the migrations (db/migrations); nothing here calls `sync()`. Keys and timestamps default to the database's
+// gen_random_uuid() and now(), as the columns do, so every time in these tables is on the database's clock.
+import type { Sequelize } from 'sequelize';
+import { defineAccountModels } from '../accounts/account-models';
+import { defineLinkModels } from '../accounts/link-models';
+import { defineSessionModels } from '../accounts/session-models';
+import { defineAuditModels } from '../audit/audit-entry-model';
+import { definePreferenceModels } from '../settings/user-preference-model';
+
+function defineModels(sequelize: Sequelize) {
+  const models = {
+    ...defineAccountModels(sequelize),
+    ...defineSessionModels(sequelize),
+    ...defineLinkModels(sequelize),
+    ...defineAuditModels(sequelize),
+    ...definePreferenceModels(sequelize),
+  };
+  const {
+    Company,
+    User,
+    SignInSession,
+    RefreshToken,
+    Invitation,
+    PasswordReset,
+    AuditEntry,
+    UserPreference,
+  } = models;
+  Company.hasMany(User, { as: 'members', foreignKey: 'companyId' });
+  User.belongsTo(Company, { as: 'company', foreignKey: 'companyId' });
+  User.hasMany(SignInSession, { as: 'signInSessions', foreignKey: 'userId' });
+  SignInSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  User.hasMany(RefreshToken, { as: 'refreshTokens', foreignKey: 'userId' });
+  RefreshToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  // A refresh-token family is one sign-in session (family_id = sign_in_sessions.id, not a declared key:
+  // families from before the sessions table have no row).
+  SignInSession.hasMany(RefreshToken, { as: 'refreshTokens', foreignKey: 'familyId', constraints: false });
+  Company.hasMany(Invitation, { as: 'invitations', foreignKey: 'companyId' });
+  Invitation.belongsTo(Company, { as: 'company', foreignKey: 'companyId' });
+  User.hasMany(PasswordReset, { as: 'passwordResets', foreignKey: 'userId' });
+  PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+  User.hasOne(UserPreference, { as: 'preferences', foreignKey: 'userId' });
+  UserPreference.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  return models;
+}
+
+/** The models bound to one Sequelize instance. */
+export type Models = ReturnType<typeof defineModels>;
+
+const bound = new WeakMap<Sequelize, Models>();
+
+/**
+ * Binds the models to this Sequelize instance, once; later calls return the same set. Each instance gets its
+ * own subclasses, so two nodes (or a primary and a replica) in one process never share a pool.
+ */
+export function initModels(sequelize: Sequelize): Models {
+  let models = bound.get(sequelize);
+  if (!models) {
+    models = defineModels(sequelize);
+    bound.set(sequelize, models);
+  }
+  return models;
+}
