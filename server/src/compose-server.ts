@@ -228,7 +228,7 @@ export async function startServer(
             message: {
               type: 'reading',
               systemId: row.systemId,
-              reading: { ...row.reading, receivedAt },
+              reading: { ...row.reading, receivedAt, deviceId: row.deviceId },
               derived,
             },
           }),
@@ -289,7 +289,12 @@ export async function startServer(
       createReadingsCsvRoutes(
         createReadingsCsvService({ systems, repository: readingsRepository, audit, now }),
       ),
-      createAlertsRoutes({ alerts, systems, analytics }),
+      createAlertsRoutes({
+        alerts,
+        systems,
+        analytics,
+        monitors: (systemId) => devicesRepository.monitorsWithLatest(systemId),
+      }),
       createSettingsRoutes(settings),
       installerRoutes,
       batteryHealth.routes,

@@ -36,7 +36,13 @@ export { checkPack } from './senml/check-pack';
 export { resolvePack } from './senml/resolve-pack';
 export { MAX_READING_PAYLOAD_BYTES } from './senml/reading-measurement';
 export { encodeReadingPack, decodeReadingPack, parseReadingPayload } from './senml/reading-pack';
-export type { ApiErrorBody, HistoryPoint, ReceivedReading, SystemSummary } from './api/api-contract';
+export type {
+  ApiErrorBody,
+  HistoryPoint,
+  MonitorLatest,
+  ReceivedReading,
+  SystemSummary,
+} from './api/api-contract';
 export {
   READINGS_CSV_HEADER,
   ReadingsCsvError,

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { SystemStatus } from '@cellwarden/shared';
+import type { MonitorLatest, SystemStatus } from '@cellwarden/shared';
 import type { SystemsService } from '../systems/systems-service';
 import { queryTimeSchema } from '../telemetry/query-time';
 import type { AlertsService } from './alerts-service';
@@ -25,6 +25,8 @@ export function createAlertsRoutes(deps: {
   alerts: AlertsService;
   systems: SystemsService;
   analytics: LiveAnalytics;
+  /** The system's monitors with their newest readings, lead first. */
+  monitors: (systemId: string) => Promise<MonitorLatest[]>;
 }): Router {
   const router = Router();
   router.get('/:systemId/alerts', async (req, res) => {
@@ -56,6 +58,7 @@ export function createAlertsRoutes(deps: {
         to: now,
         activeOnly: true,
       }),
+      monitors: await deps.monitors(system.id),
     };
     res.json({ status });
   });

@@ -29,6 +29,8 @@ interface SystemRuntime {
   loadedAt: number;
   name: string;
   timeZone: string;
+  /** The monitor whose readings drive the analytics; the others of the same bank are shown, not estimated. */
+  leadDeviceId: string | null;
   state?: SystemAnalyticsState;
   derived?: DerivedState;
   /** Wall-clock arrival of the newest reading, to judge silence on the device's own clock. */
@@ -60,7 +62,10 @@ export function createLiveAnalytics(deps: {
   const pending = new Map<string, Promise<SystemRuntime | undefined>>();
 
   async function load(systemId: string, previous?: SystemRuntime): Promise<SystemRuntime | undefined> {
-    const stored = await deps.settings.find(systemId);
+    const [stored, leadDeviceId] = await Promise.all([
+      deps.settings.find(systemId),
+      deps.readings.leadMonitor(systemId),
+    ]);
     if (!stored) return undefined;
     const now = deps.now();
     const config = analyticsConfigFromSettings(stored as never, utcOffsetMinutes(stored.timeZone, now));
@@ -69,6 +74,7 @@ export function createLiveAnalytics(deps: {
       loadedAt: now,
       name: stored.name,
       timeZone: stored.timeZone,
+      leadDeviceId,
       state: previous?.state,
       derived: previous?.derived,
       lastReceivedAt: previous?.lastReceivedAt,
@@ -120,6 +126,7 @@ export function createLiveAnalytics(deps: {
         systemId,
         new Date(from - REPLAY_LEAD_MS),
         new Date((runtime.lastMeasuredAt ?? from) + 1),
+        runtime.leadDeviceId ?? undefined,
       );
       for (const episode of flagEpisodes(readings, runtime.settings)) {
         if (episode.endedAt < from) continue;
@@ -147,6 +154,9 @@ export function createLiveAnalytics(deps: {
         try {
           const runtime = await runtimeFor(row.systemId);
           if (!runtime) return null;
+          // A second monitor's reading is shown as it is; feeding it to the estimator would interleave two banks'
+          // worth of offsets and clocks into one state.
+          if (runtime.leadDeviceId !== null && row.deviceId !== runtime.leadDeviceId) return null;
           const turn = runtime.queue.then(async () => {
             if (runtime.lastMeasuredAt !== undefined && row.reading.measuredAt < runtime.lastMeasuredAt) {
               scheduleReplay(row.systemId, runtime, row.reading.measuredAt);

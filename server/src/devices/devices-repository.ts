@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { DeviceListing } from '@cellwarden/shared';
+import type { DeviceListing, MonitorLatest } from '@cellwarden/shared';
 
 /** A battery monitor's credentials, as stored (the secret only as a hash). */
 export interface DeviceRecord {
@@ -67,6 +67,25 @@ export function createDevicesRepository(sequelize: Sequelize) {
       );
       return rows.length > 0;
     },
+    /** Every monitor in service on a system with its newest reading, lead monitor first (see lead-monitor.ts). */
+    async monitorsWithLatest(systemId: string): Promise<MonitorLatest[]> {
+      const rows = await select<{ deviceId: string; label: string; reading: MonitorLatest['reading'] }>(
+        `SELECT d.id AS "deviceId", d.label,
+           CASE WHEN r.measured_at IS NULL THEN NULL ELSE json_build_object(
+             'measuredAt', (extract(epoch FROM r.measured_at) * 1000)::bigint,
+             'receivedAt', (extract(epoch FROM r.received_at) * 1000)::bigint,
+             'voltage', r.voltage, 'current', r.current, 'temperature', r.temperature,
+             'stateOfCharge', r.state_of_charge, 'power', r.power, 'sourceCurrents', r.source_currents,
+             'deviceId', r.device_id) END AS reading
+         FROM devices d
+         LEFT JOIN LATERAL (SELECT * FROM readings WHERE system_id = d.system_id AND device_id = d.id
+           ORDER BY measured_at DESC LIMIT 1) r ON true
+         WHERE d.system_id = :systemId AND d.revoked_at IS NULL
+         ORDER BY d.created_at, d.id`,
+        { systemId },
+      );
+      return rows.map((row, index) => ({ ...row, lead: index === 0, reading: withoutNulls(row.reading) }));
+    },
     /** Notes when devices last reported; one statement per ingest batch. */
     async markSeen(lastSeen: Map<string, number>): Promise<void> {
       if (lastSeen.size === 0) return;
@@ -80,3 +99,9 @@ export function createDevicesRepository(sequelize: Sequelize) {
 }
 
 export type DevicesRepository = ReturnType<typeof createDevicesRepository>;
+
+function withoutNulls(reading: MonitorLatest['reading']): MonitorLatest['reading'] {
+  if (reading)
+    for (const [key, value] of Object.entries(reading)) if (value === null) delete (reading as never)[key];
+  return reading;
+}

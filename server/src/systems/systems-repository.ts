@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { SystemSummary } from '@cellwarden/shared';
+import { LEAD_MONITOR_SQL } from '../telemetry/lead-monitor';
 
 /** A system as stored: what the API shows, plus who owns and services it (for the access rule). */
 export interface StoredSystem extends SystemSummary {
@@ -15,6 +16,7 @@ export interface Visibility {
   now: number;
 }
 
+// The latest reading is the lead monitor's when it has one (see lead-monitor.ts), else the newest of any monitor.
 const SELECT_SYSTEM = `
   SELECT s.id, s.name, s.kind, s.chemistry, s.nominal_voltage AS "nominalVoltage",
     s.rated_capacity_ah AS "ratedCapacityAh", s.usable_capacity_ah AS "usableCapacityAh",
@@ -23,14 +25,20 @@ const SELECT_SYSTEM = `
       'measuredAt', (extract(epoch FROM r.measured_at) * 1000)::bigint,
       'receivedAt', (extract(epoch FROM r.received_at) * 1000)::bigint,
       'voltage', r.voltage, 'current', r.current, 'temperature', r.temperature,
-      'stateOfCharge', r.state_of_charge, 'power', r.power, 'sourceCurrents', r.source_currents) END AS "latestReading",
+      'stateOfCharge', r.state_of_charge, 'power', r.power, 'sourceCurrents', r.source_currents,
+      'deviceId', r.device_id) END AS "latestReading",
     (SELECT coalesce(json_agg(json_build_object('kind', a.kind, 'severity', a.severity)
         ORDER BY a.severity = 'critical' DESC, a.started_at), '[]'::json)
       FROM alert_events a WHERE a.system_id = s.id AND a.ended_at IS NULL) AS "activeFlags",
     (SELECT (extract(epoch FROM max(d.last_seen_at)) * 1000)::float8 FROM devices d WHERE d.system_id = s.id) AS "lastSeenAt"
   FROM systems s
   LEFT JOIN LATERAL (
-    SELECT * FROM readings WHERE system_id = s.id ORDER BY measured_at DESC LIMIT 1
+    SELECT * FROM (
+      (SELECT *, 0 AS preference FROM readings WHERE system_id = s.id AND device_id = ${LEAD_MONITOR_SQL('s.id')}
+        ORDER BY measured_at DESC LIMIT 1)
+      UNION ALL
+      (SELECT *, 1 FROM readings WHERE system_id = s.id ORDER BY measured_at DESC LIMIT 1)
+    ) latest ORDER BY preference LIMIT 1
   ) r ON true`;
 
 function stripNulls(summary: StoredSystem): StoredSystem {

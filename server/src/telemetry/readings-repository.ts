@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { BatteryReading, HistoryPoint } from '@cellwarden/shared';
+import { LEAD_MONITOR_SQL } from './lead-monitor';
 import { INSERT_READINGS_WITH_ROLLUPS, LOCK_SYSTEMS, MAX_INTEGRATION_GAP_SECONDS } from './rollups-sql';
 
 /** A reading bound for storage, with the system and device it came from. */
@@ -86,12 +87,18 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
       const replacements = { systemId, from, to, bucket, limit };
       // Long ranges read the rollups: a year of hours is 8,760 rows however often the device reports.
       const rollup = bucketMs >= 3600_000 ? 'rollups_1h' : bucketMs >= 60_000 ? 'rollups_1m' : undefined;
+      // Raw points come from the lead monitor when it reported in the range, so two monitors never alternate.
       if (!rollup)
         return reader.query<HistoryPoint>(
-          `SELECT (extract(epoch FROM date_bin(:bucket::interval, measured_at, :from)) * 1000)::float8 AS "measuredAt",
+          `WITH lead AS (SELECT ${LEAD_MONITOR_SQL(':systemId')} AS id),
+             shown AS (SELECT CASE WHEN EXISTS (SELECT 1 FROM readings r, lead WHERE r.system_id = :systemId
+               AND r.device_id = lead.id AND r.measured_at >= :from AND r.measured_at <= :to) THEN lead.id END AS id
+               FROM lead)
+           SELECT (extract(epoch FROM date_bin(:bucket::interval, measured_at, :from)) * 1000)::float8 AS "measuredAt",
              avg(voltage) AS voltage, avg(current) AS current, avg(temperature) AS temperature,
              avg(state_of_charge) AS "stateOfCharge"
-           FROM readings WHERE system_id = :systemId AND measured_at >= :from AND measured_at <= :to
+           FROM readings, shown WHERE system_id = :systemId AND measured_at >= :from AND measured_at <= :to
+             AND (shown.id IS NULL OR device_id = shown.id)
            GROUP BY 1 ORDER BY 1 LIMIT :limit`,
           { replacements, type: QueryTypes.SELECT },
         );
@@ -110,14 +117,27 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
       );
     },
 
-    /** Raw readings of one system in [from, to), oldest first. */
-    listRaw: (systemId: string, from: Date, to: Date) =>
+    /** The monitor a system's headline and analytics follow (see lead-monitor.ts); null when it has none. */
+    async leadMonitor(systemId: string): Promise<string | null> {
+      const [row] = await sequelize.query<{ id: string | null }>(
+        `SELECT ${LEAD_MONITOR_SQL(':systemId')} AS id`,
+        {
+          replacements: { systemId },
+          type: QueryTypes.SELECT,
+        },
+      );
+      return row?.id ?? null;
+    },
+
+    /** Raw readings of one system in [from, to), oldest first; of one of its monitors when `deviceId` is given. */
+    listRaw: (systemId: string, from: Date, to: Date, deviceId?: string) =>
       reader
         .query<BatteryReading>(
           `SELECT (extract(epoch FROM measured_at) * 1000)::float8 AS "measuredAt", voltage, current, temperature,
            state_of_charge AS "stateOfCharge", power
-         FROM readings WHERE system_id = :systemId AND measured_at >= :from AND measured_at < :to ORDER BY measured_at`,
-          { replacements: { systemId, from, to }, type: QueryTypes.SELECT },
+         FROM readings WHERE system_id = :systemId AND measured_at >= :from AND measured_at < :to
+           AND (CAST(:deviceId AS text) IS NULL OR device_id = :deviceId) ORDER BY measured_at`,
+          { replacements: { systemId, from, to, deviceId: deviceId ?? null }, type: QueryTypes.SELECT },
         )
         .then((rows) =>
           rows.map((r) => {

@@ -68,4 +68,6 @@ export interface SystemStatus {
   latestReading: import('./api-contract').ReceivedReading | null;
   derived: DerivedState | null;
   activeAlerts: AlertEvent[];
+  /** Every monitor in service on the system, lead first; a bank with two shows both, each labelled. */
+  monitors: import('./api-contract').MonitorLatest[];
 }

@@ -1,8 +1,17 @@
 // The shapes of Cellwarden's HTTP API that the server sends and the dashboard reads: one definition for both.
 import type { BatteryReading } from '../telemetry/reading';
 
-/** A reading as the server stored it, with the time it arrived. */
-export type ReceivedReading = BatteryReading & { receivedAt: number };
+/** A reading as the server stored it, with the time it arrived and the monitor that measured it. */
+export type ReceivedReading = BatteryReading & { receivedAt: number; deviceId?: string };
+
+/** One battery monitor of a system with its newest reading (GET /api/systems/:id/status). */
+export interface MonitorLatest {
+  deviceId: string;
+  label: string;
+  /** The monitor the system's headline, analytics and raw history follow. */
+  lead: boolean;
+  reading: ReceivedReading | null;
+}
 
 /** One battery system the signed-in user may see, as GET /api/systems returns it. */
 export interface SystemSummary {
