@@ -80,3 +80,11 @@ export function loadConfig(env: Record<string, string | undefined>): Config {
   const problems = result.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
   throw new Error(`Invalid configuration:\n${problems.join('\n')}`);
 }
+
+/** Only the database URL, by the same rule: for tools that need no other setting (the migration CLI). */
+export function loadDatabaseConfig(env: Record<string, string | undefined>): Pick<Config, 'DATABASE_URL'> {
+  const result = configSchema.pick({ DATABASE_URL: true }).safeParse(env);
+  if (result.success) return result.data;
+  const problems = result.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+  throw new Error(`Invalid configuration:\n${problems.join('\n')}`);
+}
