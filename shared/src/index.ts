@@ -65,3 +65,6 @@ export type * from './api/install-register-contract';
 export { COMPONENT_KINDS } from './api/install-register-contract';
 export type * from './api/battery-health-contract';
 export { HEALTH_REPORT_MAX_DAYS } from './api/battery-health-contract';
+export type * from './api/onboarding-contract';
+export type * from './api/access-requests-contract';
+export * from './onboarding/index';

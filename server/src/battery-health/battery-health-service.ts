@@ -64,6 +64,7 @@ export function createBatteryHealthService(deps: {
           : null;
       return {
         systemId: system.id,
+        systemName: settings.name,
         chemistry: system.chemistry,
         nominalVoltage: system.nominalVoltage,
         ratedCapacityAh: system.ratedCapacityAh,

@@ -6,6 +6,7 @@ import { createLogThrottle } from '../log-throttle';
 import type { Logger } from '../logger';
 import { createConnectLimits, type ConnectLimits } from './connect-limits';
 import { createDeviceSessions } from './device-sessions';
+import type { DeviceRefusals } from './device-refusals';
 
 // Every broker access decision lives here: who may connect, publish and subscribe.
 
@@ -40,6 +41,8 @@ export function createBrokerPolicy(deps: {
   /** How often an open connection's credentials are checked again, milliseconds (default 30 s). */
   recheckMs?: number;
   limits?: ConnectLimits;
+  /** Refused connects are counted here per device id (the onboarding screen says why a monitor is silent). */
+  refusals?: DeviceRefusals;
 }): Pick<AedesOptions, 'authenticate' | 'authorizePublish' | 'authorizeSubscribe'> & {
   credentialsChanged(deviceId: string): void;
 } {
@@ -51,16 +54,21 @@ export function createBrokerPolicy(deps: {
   async function connectDecision(client: Client, deviceId: string, secret: string) {
     const address = addressOf(client);
     const verdict = await limits.verdict(deviceId, address);
-    if (verdict === 'refuse')
+    if (verdict === 'refuse') {
+      deps.refusals?.count(deviceId, 'credentials', 'too_many_failed_connects');
       return refusal(SERVER_UNAVAILABLE, 'Too many failed connects; try again in a minute');
+    }
     if (verdict === 'slow') await new Promise((resolve) => setTimeout(resolve, SLOWED_CONNECT_MS));
     const device = await deps.devices.authenticate(deviceId, secret);
     if (!device) {
       await limits.failed(deviceId, address);
+      deps.refusals?.count(deviceId, 'credentials', 'bad_credentials');
       return refusal(BAD_USERNAME_OR_PASSWORD, 'Bad device id or secret');
     }
-    if (!isOwnClientId(client.id, device.deviceId))
+    if (!isOwnClientId(client.id, device.deviceId)) {
+      deps.refusals?.count(deviceId, 'credentials', 'client_id_rejected');
       return refusal(IDENTIFIER_REJECTED, `Client id must be ${device.deviceId} or ${device.deviceId}/…`);
+    }
     await limits.succeeded(deviceId, address);
     sessions.open(client, device, secret);
     return null;

@@ -20,6 +20,8 @@ export function createDevicesService(deps: {
   systems?: SystemsService;
   audit?: AuditService;
   brokerPort?: () => number;
+  /** Where monitors reach the broker, shown with their credentials. */
+  brokerUrl?: () => string;
   /** Told when a device is revoked or its secret rotated, so the broker checks open connections again. */
   onCredentialsChanged?: (deviceId: string) => void;
 }) {
@@ -33,6 +35,7 @@ export function createDevicesService(deps: {
       mqttPassword: secret,
       mqttTopic: readingsTopic(id),
       brokerPort: deps.brokerPort?.() ?? 1883,
+      brokerUrl: deps.brokerUrl?.() ?? `mqtt://127.0.0.1:${deps.brokerPort?.() ?? 1883}`,
     };
   }
 

@@ -7,7 +7,13 @@ import type { BatchWriter } from './batch-writer';
 export type RefusalCounts = Record<string, Record<string, number>>;
 
 /** Turns a device's MQTT payload into stored readings, or a counted refusal. */
-export function createIngestService(deps: { writer: BatchWriter; logger: Logger; now: () => number }) {
+export function createIngestService(deps: {
+  writer: BatchWriter;
+  logger: Logger;
+  now: () => number;
+  /** Told of each refusal (the per-device counters the onboarding screen reads). */
+  onRefused?: (deviceId: string, code: string) => void;
+}) {
   const refusals: RefusalCounts = {};
   // A misbehaving device may send hundreds of bad payloads a second: one line per device and minute.
   const log = createLogThrottle(deps.logger);
@@ -16,6 +22,7 @@ export function createIngestService(deps: { writer: BatchWriter; logger: Logger;
   function refuse(deviceId: string, code: string, message: string) {
     const counts = (refusals[deviceId] ??= {});
     counts[code] = (counts[code] ?? 0) + 1;
+    deps.onRefused?.(deviceId, code);
     log.warn(`${deviceId}:${code}`, 'reading refused', { deviceId, code, reason: message });
   }
 

@@ -57,6 +57,8 @@ export interface DeviceCredentials {
   mqttPassword: string;
   mqttTopic: string;
   brokerPort: number;
+  /** Where monitors reach the broker (MQTT_PUBLIC_URL, or the node's own address and port). */
+  brokerUrl: string;
 }
 
 /** What an audit entry records. */
@@ -71,7 +73,15 @@ export type AuditAction =
   | 'device.rotated'
   | 'device.revoked'
   | 'alert.acknowledged'
-  | 'commissioning.recorded';
+  | 'commissioning.recorded'
+  | 'system.created'
+  | 'ownership.offered'
+  | 'ownership.accepted'
+  | 'installer.removed'
+  | 'share-code.created'
+  | 'access.requested'
+  | 'access.approved'
+  | 'access.declined';
 
 /** One entry of GET /api/systems/:id/audit (owner, and installer/admin of the system's company). */
 export interface AuditEntry {

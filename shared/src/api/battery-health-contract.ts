@@ -5,6 +5,7 @@ import type { CapacityTrend, LifeCycleFigures } from '../health/health-types';
 /** GET /api/systems/:id/battery-health. */
 export interface BatteryHealthResponse {
   systemId: string;
+  systemName: string;
   chemistry: 'lifepo4' | 'agm' | 'flooded';
   nominalVoltage: number;
   ratedCapacityAh: number;

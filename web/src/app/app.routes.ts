@@ -33,6 +33,12 @@ export const routes: Routes = [
     loadComponent: () => import('./alerts/alerts').then((m) => m.Alerts),
   },
   {
+    path: 'systems/:id/battery-health',
+    title: 'Battery health · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./battery-health/battery-health').then((m) => m.BatteryHealth),
+  },
+  {
     path: 'systems/:id/settings',
     title: 'System settings · Cellwarden',
     canActivate: [authGuard],

@@ -12,6 +12,14 @@ const LABELS: Record<AuditAction, string> = {
   'device.revoked': 'Revoked a device',
   'alert.acknowledged': 'Acknowledged an alert',
   'commissioning.recorded': 'Recorded a commissioning check',
+  'system.created': 'Set up the system',
+  'ownership.offered': 'Offered the system to its owner',
+  'ownership.accepted': 'Accepted ownership',
+  'installer.removed': "Ended the installer company's rights",
+  'share-code.created': 'Made a share code',
+  'access.requested': 'Asked for access',
+  'access.approved': 'Approved an access request',
+  'access.declined': 'Declined an access request',
 };
 
 /** An audit action in plain words. */

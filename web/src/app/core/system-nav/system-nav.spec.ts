@@ -35,6 +35,7 @@ describe('SystemNav', () => {
       '/systems/van%201',
       '/systems/van%201/history',
       '/systems/van%201/alerts',
+      '/systems/van%201/battery-health',
       '/systems/van%201/settings',
       '/systems/van%201/readings-transfer',
     ]);

@@ -6,7 +6,15 @@ import { Auth } from '../auth';
 
 /** The sections of one system's pages. */
 export type SystemSection =
-  'live' | 'history' | 'alerts' | 'settings' | 'readings-transfer' | 'devices' | 'access' | 'commissioning';
+  | 'live'
+  | 'history'
+  | 'alerts'
+  | 'battery-health'
+  | 'settings'
+  | 'readings-transfer'
+  | 'devices'
+  | 'access'
+  | 'commissioning';
 
 /** Links between one system's live, history, alerts and settings pages, with a way back to the list. */
 @Component({
@@ -106,6 +114,12 @@ export class SystemNav {
       label: 'Alerts',
       icon: 'notifications',
       path: (id: string) => ['/systems', id, 'alerts'],
+    },
+    {
+      section: 'battery-health',
+      label: 'Health',
+      icon: 'monitor_heart',
+      path: (id: string) => ['/systems', id, 'battery-health'],
     },
     {
       section: 'settings',

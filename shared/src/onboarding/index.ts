@@ -1,0 +1,2 @@
+export * from './share-code';
+export * from './monitor-example';

@@ -1,0 +1,142 @@
+import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import type { BatteryHealthResponse } from '@cellwarden/shared';
+import type { ChartOptions } from 'chart.js';
+import { BaseChartDirective } from 'ng2-charts';
+import { Observable, catchError, map, of, startWith, switchMap } from 'rxjs';
+import { apiProblem, loadFailureText, type ApiProblem } from '../core/api-error';
+import { provideChartSetup } from '../core/chart-setup';
+import { DateTimePipe } from '../core/date-time-pipe';
+import { Preferences } from '../core/preferences';
+import { SystemNav } from '../core/system-nav/system-nav';
+import { TemperaturePipe } from '../core/temperature-pipe';
+import { BatteryHealthApi } from './battery-health-api';
+import {
+  barChartSummary,
+  capacityChart,
+  depthChart,
+  energyChart,
+  monthLabel,
+  temperatureChart,
+} from './health-charts';
+import { ReportDownload } from './report-download/report-download';
+
+type Load =
+  | { phase: 'loading' }
+  | { phase: 'error'; problem: ApiProblem }
+  | { phase: 'ready'; value: BatteryHealthResponse };
+
+const BAR_OPTIONS: ChartOptions<'bar'> = {
+  responsive: true,
+  maintainAspectRatio: false,
+  animation: false,
+  plugins: { legend: { display: false } },
+  scales: { y: { beginAtZero: true } },
+};
+
+/** A battery's capacity over months, how it has been used, and its health report. */
+@Component({
+  selector: 'cw-battery-health',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [provideChartSetup()],
+  imports: [
+    MatIconModule,
+    MatProgressSpinnerModule,
+    BaseChartDirective,
+    DateTimePipe,
+    TemperaturePipe,
+    SystemNav,
+    ReportDownload,
+  ],
+  templateUrl: './battery-health.html',
+  styleUrl: './battery-health.scss',
+})
+export class BatteryHealth {
+  private readonly api = inject(BatteryHealthApi);
+  private readonly preferences = inject(Preferences);
+  private readonly locale = inject(LOCALE_ID);
+
+  /** The system id from the route. */
+  readonly id = input.required<string>();
+
+  protected readonly load = toSignal(
+    toObservable(this.id).pipe(switchMap((id) => asLoad(this.api.health(id)))),
+    { initialValue: { phase: 'loading' } as Load },
+  );
+  protected readonly health = computed(() => {
+    const load = this.load();
+    return load.phase === 'ready' ? load.value : null;
+  });
+  protected readonly problem = computed(() => {
+    const load = this.load();
+    return load.phase === 'error'
+      ? loadFailureText(load.problem, 'The battery health could not be loaded. Reload the page to try again.')
+      : null;
+  });
+  protected readonly headline = computed(() => this.health()?.words[0] ?? null);
+  protected readonly moreWords = computed(() => this.health()?.words.slice(1) ?? []);
+  protected readonly figures = computed(() => this.health()?.figures ?? null);
+  protected readonly episodes = computed(() => {
+    const f = this.figures();
+    if (!f) return [];
+    return [
+      ...f.coldCharging.map((e) => ({ ...e, kind: 'Charged below freezing' })),
+      ...f.hotCharging.map((e) => ({ ...e, kind: 'Charged while hot' })),
+    ].sort((a, b) => a.start - b.start);
+  });
+
+  protected readonly capacityData = computed(() => {
+    const h = this.health();
+    return h ? capacityChart(h.capacity, h.usableCapacityAh, this.locale, h.timeZone) : null;
+  });
+  protected readonly capacityOptions = computed<ChartOptions<'line'>>(() => ({
+    responsive: true,
+    maintainAspectRatio: false,
+    animation: false,
+    plugins: {
+      legend: { labels: { filter: (item) => !item.text.includes('edge of the band') } },
+      tooltip: { filter: (item) => !item.dataset.label?.includes('edge of the band') },
+    },
+    scales: { y: { title: { display: true, text: 'Ah' } } },
+  }));
+  protected readonly capacitySummary = computed(() => {
+    const h = this.health();
+    if (!h || h.capacity.months.length === 0) return '';
+    return h.capacity.months
+      .map(
+        (m) =>
+          `${monthLabel(m.monthStart, this.locale, h.timeZone)}: ${m.usableAh.toFixed(0)} ± ${m.sigmaAh.toFixed(0)} Ah`,
+      )
+      .join('; ');
+  });
+  protected readonly temperatureData = computed(() => {
+    const f = this.figures();
+    return f ? temperatureChart(f, this.preferences.temperatureUnit()) : null;
+  });
+  protected readonly depthData = computed(() => {
+    const f = this.figures();
+    return f ? depthChart(f) : null;
+  });
+  protected readonly energyData = computed(() => {
+    const f = this.figures();
+    return f ? energyChart(f) : null;
+  });
+  protected readonly barOptions = BAR_OPTIONS;
+  protected readonly summaryOf = barChartSummary;
+  protected readonly percent = (fraction: number) =>
+    new Intl.NumberFormat(this.locale, { style: 'percent', maximumFractionDigits: 0 }).format(fraction);
+  protected readonly day = (at: number, timeZone: string) =>
+    new Intl.DateTimeFormat(this.locale, { dateStyle: 'medium', timeZone }).format(at);
+  protected readonly number = (value: number, digits = 0) =>
+    new Intl.NumberFormat(this.locale, { maximumFractionDigits: digits }).format(value);
+}
+
+function asLoad(source: Observable<BatteryHealthResponse>): Observable<Load> {
+  return source.pipe(
+    map((value): Load => ({ phase: 'ready', value })),
+    catchError((error: unknown) => of<Load>({ phase: 'error', problem: apiProblem(error) })),
+    startWith<Load>({ phase: 'loading' }),
+  );
+}
