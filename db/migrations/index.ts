@@ -11,6 +11,7 @@ import { createSignInSessions } from './2026.12.03T09.00.00.create-sign-in-sessi
 import { alterRollups } from './2026.12.03T12.50.00.alter-rollups';
 import { alterGrantsEmail } from './2026.12.03T13.20.00.alter-grants-email';
 import { createBatteryHealth } from './2026.12.03T16.10.00.create-battery-health';
+import { createOnboardingAndRequests } from './2026.12.03T16.20.00.create-onboarding-and-requests';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
 export const migrations: Migration[] = [
@@ -26,4 +27,5 @@ export const migrations: Migration[] = [
   alterRollups,
   alterGrantsEmail,
   createBatteryHealth,
+  createOnboardingAndRequests,
 ];

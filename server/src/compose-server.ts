@@ -35,6 +35,17 @@ import { connectDatabase } from './database/connect-database';
 import { initModels } from './database/models';
 import { createDevicesRepository } from './devices/devices-repository';
 import { createDevicesService } from './devices/devices-service';
+import { createDeviceRefusals } from './broker/device-refusals';
+import { createOnboardingRepository } from './onboarding/onboarding-repository';
+import { createHandoverRoutes, createOnboardingRoutes } from './onboarding/onboarding-routes';
+import { createOnboardingService } from './onboarding/onboarding-service';
+import { createAccessRequestsRepository } from './access-requests/access-requests-repository';
+import {
+  createAccessRequestsRoutes,
+  createSystemShareRoutes,
+} from './access-requests/access-requests-routes';
+import { createAccessRequestsService } from './access-requests/access-requests-service';
+import { createShareCodeLimits } from './access-requests/share-code-limits';
 import { startBatteryHealth } from './battery-health/battery-health-component';
 import { createBatchWriter } from './ingest/batch-writer';
 import { createIngestService } from './ingest/ingest-service';
@@ -112,7 +123,11 @@ export async function startServer(
   const invitations = createInvitationsService({
     ...linkDeps,
     sessions: accounts,
-    onAccountCreated: (email, userId) => grantsRepository.attachWaiting(email, userId),
+    onAccountCreated: async (email, userId) => {
+      await grantsRepository.attachWaiting(email, userId);
+      // Systems an installer set up for this address become the new account's (onboarding).
+      await acceptWaitingSystems(email, userId);
+    },
   });
   const passwordReset = createPasswordResetService({ ...linkDeps, sessions });
 
@@ -123,6 +138,7 @@ export async function startServer(
   });
   const audit = createAuditService({ repository: createAuditRepository(sequelize), systems, logger });
   let onAccessRevoked: (systemId: string) => void = () => undefined;
+  let acceptWaitingSystems: (email: string, userId: string) => Promise<void> = async () => undefined;
   const grants = createGrantsService({
     repository: grantsRepository,
     accounts: accountsRepository,
@@ -238,16 +254,28 @@ export async function startServer(
         .catch((error) => logger.warn('last seen not updated', { error: String(error) }));
     },
   });
-  const ingest = createIngestService({ writer, logger, now });
+  // Why the broker refused each monitor, for the onboarding screen (bounded; this node's counts).
+  const refusals = createDeviceRefusals({ now });
+  const ingest = createIngestService({
+    writer,
+    logger,
+    now,
+    onRefused: (deviceId, code) =>
+      refusals.count(deviceId, code === 'foreign_topic' ? 'topic' : 'payload', code),
+  });
   let mqttPort = 0;
   const devices = createDevicesService({
     repository: devicesRepository,
     systems,
     audit,
     brokerPort: () => mqttPort,
-    onCredentialsChanged: (deviceId) => brokerPolicy.credentialsChanged(deviceId),
+    brokerUrl: () => brokerUrl,
+    onCredentialsChanged: (deviceId) => {
+      brokerPolicy.credentialsChanged(deviceId);
+      refusals.forget(deviceId);
+    },
   });
-  const brokerPolicy = createBrokerPolicy({ devices, ingest, logger });
+  const brokerPolicy = createBrokerPolicy({ devices, ingest, logger, refusals });
   const broker = await startMqttBroker({
     host: config.HOST,
     port: config.MQTT_PORT,
@@ -257,10 +285,41 @@ export async function startServer(
     persistence: cluster?.broker.persistence,
   });
   mqttPort = broker.port;
+  const brokerHost = config.PUBLIC_URL ? new URL(config.PUBLIC_URL).hostname : config.HOST;
+  const brokerUrl = config.MQTT_PUBLIC_URL?.replace(/\/$/, '') ?? `mqtt://${brokerHost}:${mqttPort}`;
+  const onboarding = createOnboardingService({
+    repository: createOnboardingRepository(sequelize),
+    accounts: accountsRepository,
+    links,
+    devices: devicesRepository,
+    refusals,
+    systems,
+    audit,
+    mailer,
+    publicUrl: () => publicUrl,
+    now,
+    logger,
+    onAccessRevoked: (systemId) => onAccessRevoked(systemId),
+  });
+  acceptWaitingSystems = (email, userId) => onboarding.acceptWaiting(email, userId);
+  const accessRequests = createAccessRequestsService({
+    repository: createAccessRequestsRepository(sequelize),
+    accounts: accountsRepository,
+    systems,
+    grants,
+    audit,
+    limits: createShareCodeLimits(),
+    mailer,
+    publicUrl: () => publicUrl,
+    now,
+    logger,
+  });
 
   const signedInRouters: Record<string, Router> = { '/api/me': createPreferencesRoutes(settings) };
   // Each person sees only the captured mail addressed to them; with a real SMTP service the list is empty.
   signedInRouters['/api/dev/mail'] = createMailOutboxRoutes(mailCatcher);
+  signedInRouters['/api/handovers'] = createHandoverRoutes(onboarding);
+  signedInRouters['/api/access-requests'] = createAccessRequestsRoutes(accessRequests);
   const app = createApp({
     sequelize,
     logger,
@@ -297,6 +356,8 @@ export async function startServer(
       }),
       createSettingsRoutes(settings),
       installerRoutes,
+      createOnboardingRoutes(onboarding),
+      createSystemShareRoutes(accessRequests),
       batteryHealth.routes,
     ],
     corsOrigins: config.CORS_ORIGINS.split(',')
