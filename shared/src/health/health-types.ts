@@ -20,6 +20,9 @@ export interface MinuteSummary {
   ahOut: number;
   /** State of charge the device itself reported last in the minute, %. */
   socLast?: number;
+  /** Watt-hours into and out of the battery in this minute, when the rollup keeps them. */
+  whIn?: number;
+  whOut?: number;
 }
 
 /** How a capacity sample learned the state of charge at its end. */
@@ -58,12 +61,14 @@ export type CapacityTrackerState = {
   countedAh: number;
   /** Charge amp-hours put in since the sync (their efficiency is uncertain), Ah. */
   chargeAhSinceFull: number;
-  /** Deepest net draw since the sync, Ah: a sample must reach near it to be worth taking. */
-  deepestAh: number;
   /** Since when the current has stayed near zero, ms. */
   restingSince?: number;
   /** Whether the present rest (or cut-off) already gave a sample. */
   sampledThisRest: boolean;
+  /** Whether a discharge since the last quiet minute pulled the voltage to the low-voltage cut-off. */
+  cutoffSeen: boolean;
+  /** Relative uncertainty of the best sample taken since the sync: a later one must beat it. */
+  bestRelativeSigma?: number;
 };
 
 /** Capacity over months, and the present estimate with its uncertainty. */
