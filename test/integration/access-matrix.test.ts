@@ -86,6 +86,21 @@ const routes: { name: string; action: Action; call: (base: string, systemId: str
         .send({ granteeEmail: 'bystander@elsewhere.example', access: 'view', expiresAt: inADay() }),
   },
   { name: 'GET audit', action: 'read-audit', call: (b, id) => request(b).get(`/api/systems/${id}/audit`) },
+  {
+    name: 'GET monitor status',
+    action: 'manage-devices',
+    call: (b, id) => request(b).get(`/api/systems/${id}/devices/no-such-device/status`),
+  },
+  {
+    name: 'POST share code',
+    action: 'manage-grants',
+    call: (b, id) => request(b).post(`/api/systems/${id}/share-codes`),
+  },
+  {
+    name: 'GET access requests',
+    action: 'manage-grants',
+    call: (b, id) => request(b).get(`/api/systems/${id}/access-requests`),
+  },
 ];
 
 /** What a route must answer when allowed: 404 for a device that does not exist is still "let in". */
@@ -93,6 +108,8 @@ const ALLOWED_STATUS: Record<string, number> = {
   'POST devices': 201,
   'POST grants': 201,
   'POST rotate': 404,
+  'GET monitor status': 404,
+  'POST share code': 201,
 };
 
 type Node = Awaited<ReturnType<typeof startTestServer>>;
