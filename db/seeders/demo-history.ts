@@ -55,6 +55,8 @@ export async function seedDemoHistory(
   const settingsRepository = createSettingsRepository(sequelize);
   let stored = 0;
   for (const [index, device] of DEMO_DEVICES.entries()) {
+    // History follows each bank's lead monitor; a second monitor's readings start when it goes live.
+    if (device.monitorOf) continue;
     const [row] = await sequelize.query<{ systemId: string }>(
       `SELECT system_id AS "systemId" FROM devices WHERE id = :id`,
       {

@@ -17,6 +17,11 @@ export const DEMO_DEVICES = demo.devices as {
   secret: string;
   system: 'van' | 'cabin';
   scenario: string;
+  label?: string;
+  /** A second monitor on the bank of this device: it joins that system instead of making its own. */
+  monitorOf?: string;
+  /** The second monitor's own calibration seed (simulator --monitor-seed). */
+  monitorSeed?: number;
 }[];
 
 const COMPANY_NAME = 'Kestrel Hollow Vanfitters';
@@ -72,6 +77,7 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
     }
     const systemIds: Record<string, string> = {};
     for (const device of DEMO_DEVICES) {
+      if (device.monitorOf) continue;
       const { name, kind, scenario, timeZone } = SYSTEMS[device.system];
       const [row] = await q<{ id: string }>(
         `INSERT INTO systems (name, kind, chemistry, nominal_voltage, rated_capacity_ah, usable_capacity_ah,
@@ -100,15 +106,21 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
         },
       );
       systemIds[device.system] = row.id;
+    }
+    // The cabin's bank carries two monitors: its shunt (the lead, registered first) and the pack BMS's own link,
+    // registered a minute later; the live view shows both, labelled.
+    for (const [order, device] of DEMO_DEVICES.entries())
       await q(
-        'INSERT INTO devices (id, system_id, secret_hash) VALUES (:id, :systemId, :secretHash) RETURNING id',
+        `INSERT INTO devices (id, system_id, secret_hash, label, created_at)
+         VALUES (:id, :systemId, :secretHash, :label, now() - make_interval(mins => 10 - :order)) RETURNING id`,
         {
           id: device.id,
-          systemId: row.id,
+          systemId: systemIds[device.system],
           secretHash: hashDeviceSecret(device.secret),
+          label: device.label ?? 'battery monitor',
+          order,
         },
       );
-    }
     // The owner lets the fitters' support desk look at the van (not the cabin) for a month.
     await q(
       `INSERT INTO grants (system_id, grantee_company_id, access, granted_by, expires_at)

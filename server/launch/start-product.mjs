@@ -119,7 +119,9 @@ async function start() {
       device.scenario,
       '--interval',
       '5',
-      ...resumeArgs(device.id),
+      // A second monitor on a bank resumes that bank's timeline and reads it with its own calibration.
+      ...resumeArgs(device.monitorOf ?? device.id),
+      ...(device.monitorOf ? ['--monitor-seed', String(device.monitorSeed)] : []),
     ];
     children.push(startChild(`sim ${device.id}`, bin('tsx'), args));
   }

@@ -10,6 +10,8 @@ export const USAGE = `Usage: cellwarden-simulator --device ID:SECRET [options]
                           scenarios dealt out in turn from --scenario (default: every scenario)
   --scenario NAME[,NAME]  a scenario below (default frost-night); a list is dealt out over the devices
   --seed N                random seed, whole number (default 1); device k uses seed + k
+  --monitor-seed N        report as a second monitor on the bank that --seed plays: the same bank, this
+                          monitor's own calibration and noise (the bank's lead monitor runs without it)
   --interval S            sample interval, simulated seconds (default 10)
   --count N               publish exactly N readings per device, then exit (fast unless --speed is given)
   --speed N               simulated seconds per real second (default 1); without --start a run faster
@@ -41,6 +43,8 @@ export interface CliOptions {
   fleet?: number;
   scenarios: string[];
   seed: number;
+  /** Play the bank of `seed` as seen by a second monitor whose errors come from this seed. */
+  monitorSeed?: number;
   interval: number;
   count?: number;
   /** Undefined when not given: then a --count run goes as fast as the broker acknowledges. */
@@ -126,6 +130,7 @@ const OPTIONS = {
   fleet: { type: 'string' },
   scenario: { type: 'string' },
   seed: { type: 'string', default: '1' },
+  'monitor-seed': { type: 'string' },
   speed: { type: 'string' },
   interval: { type: 'string', default: '10' },
   count: { type: 'string' },
@@ -163,6 +168,12 @@ export function parseCli(argv: string[]): CliOptions {
       (n) => Number.isInteger(n) && n >= 0,
       'a whole number ≥ 0',
     ) as number,
+    monitorSeed: numberArg(
+      'monitor-seed',
+      values['monitor-seed'],
+      (n) => Number.isInteger(n) && n >= 0,
+      'a whole number ≥ 0',
+    ),
     interval: numberArg('interval', values.interval, positive, 'a number of seconds above 0') as number,
     count: numberArg('count', values.count, wholePositive, 'a whole number above 0'),
     speed: numberArg('speed', values.speed, positive, 'a number above 0'),

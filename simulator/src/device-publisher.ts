@@ -29,6 +29,8 @@ export interface PublishSchedule {
    * state carries on from them) but not sent, and the rest go out live at their measured time.
    */
   resumeAt?: number;
+  /** Report as a second monitor on the same bank (see SimulationOptions.monitorSeed). */
+  monitorSeed?: number;
 }
 
 // Backlog readings go in packs of this many, each reading with its own time: well under the 64 KiB limit.
@@ -142,7 +144,12 @@ export async function publishDevice(
     schedule.speed === undefined && schedule.count !== undefined && schedule.offline === undefined;
   const pack: BatteryReading[] = [];
   try {
-    const options = { seed: device.seed, start: schedule.start, intervalSeconds: schedule.intervalSeconds };
+    const options = {
+      seed: device.seed,
+      start: schedule.start,
+      intervalSeconds: schedule.intervalSeconds,
+      monitorSeed: schedule.monitorSeed,
+    };
     for (const { reading } of playScenario(scenario, options)) {
       if (schedule.resumeAt !== undefined && reading.measuredAt < schedule.resumeAt) continue;
       if (schedule.count !== undefined && taken >= schedule.count) break;

@@ -58,6 +58,7 @@ export async function run(argv: string[], deps: RunDeps): Promise<number> {
     // Without --count the simulator runs live, each reading sent when its measured time comes.
     speed: options.speed ?? (options.count === undefined ? 1 : undefined),
     resumeAt: options.resume ? deps.now() : undefined,
+    monitorSeed: options.monitorSeed,
   };
   try {
     await Promise.all(

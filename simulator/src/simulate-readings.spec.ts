@@ -132,4 +132,23 @@ describe('simulateReadings', () => {
     const last = readings.length - 1;
     expect(Math.abs((readings[last].stateOfCharge ?? 0) - trueStateOfCharge[last])).toBeLessThan(5);
   });
+
+  it('reads the same bank through a second monitor: the same truth, its own small calibration errors', () => {
+    const lead = play('flat-by-morning', { count: 600 });
+    const second = simulateReadings(SCENARIOS['flat-by-morning'], {
+      ...options,
+      count: 600,
+      monitorSeed: 99,
+    });
+    expect(second.truth).toEqual(lead.truth);
+    expect(second.readings).not.toEqual(lead.readings);
+    lead.readings.forEach((r, i) => {
+      const other = second.readings[i];
+      expect(other.measuredAt).toBe(r.measuredAt);
+      // Two monitors within their stated bias and noise (battery-monitor.ts): ±(5 + 4) mV and ±(0.05 + 0.03) A
+      // each, so they differ by at most twice that.
+      expect(Math.abs(other.voltage - r.voltage)).toBeLessThanOrEqual(0.019);
+      expect(Math.abs(other.current - r.current)).toBeLessThanOrEqual(0.17);
+    });
+  });
 });

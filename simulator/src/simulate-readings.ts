@@ -1,5 +1,5 @@
 import { BatteryReading } from '@cellwarden/shared';
-import { takeReading } from './battery-monitor';
+import { countCharge, drawSensorBias, MonitorState, takeReading } from './battery-monitor';
 import { mulberry32 } from './mulberry32';
 import { Scenario } from './scenario';
 import { initialSystemState, stepSystem, SystemFlows, SystemState } from './system-model';
@@ -11,6 +11,11 @@ export interface SimulationOptions {
   start: number;
   intervalSeconds: number;
   count: number;
+  /**
+   * Reads the same bank through a second monitor with its own calibration and noise, drawn from this seed: the
+   * bank (and so its truth) is the one `seed` plays, the readings are another device's view of it.
+   */
+  monitorSeed?: number;
 }
 
 /** The true state behind one reading, for tests and for checking what the product should infer. */
@@ -52,8 +57,13 @@ export function* playScenario(
   const steps = Math.max(1, Math.ceil(options.intervalSeconds / MAX_STEP_SECONDS));
   const dt = options.intervalSeconds / steps;
   let state = initialSystemState(scenario, options.start - options.intervalSeconds * 1000, rng);
+  const second =
+    options.monitorSeed === undefined ? undefined : secondMonitor(options.monitorSeed, scenario, state);
   for (let i = 0; ; i++) {
-    for (let s = 0; s < steps; s++) state = stepSystem(scenario, state, dt, rng);
+    for (let s = 0; s < steps; s++) {
+      state = stepSystem(scenario, state, dt, rng);
+      if (second) second.monitor = countCharge(second.monitor, state.flows.packCurrent, dt);
+    }
     const measuredAt = options.start + i * options.intervalSeconds * 1000;
     const values = {
       measuredAt,
@@ -62,8 +72,21 @@ export function* playScenario(
       temperature: state.pack.temperature,
       sourceCurrents: sourceCurrents(state),
     };
-    yield { reading: takeReading(values, state.monitor, rng), truth: truthOf(state) };
+    // The lead monitor's draws come from the bank's own generator, so they are taken even when a second
+    // monitor reports: the bank then plays exactly as it does for the lead.
+    const lead = takeReading(values, state.monitor, rng);
+    const reading = second ? takeReading(values, second.monitor, second.rng) : lead;
+    yield { reading, truth: truthOf(state) };
   }
+}
+
+function secondMonitor(seed: number, scenario: Scenario, state: SystemState) {
+  const rng = mulberry32(seed);
+  const monitor: MonitorState = {
+    ...state.monitor,
+    bias: drawSensorBias(rng, scenario.pack.nominalVoltage),
+  };
+  return { rng, monitor };
 }
 
 /** Plays `count` readings of a scenario without MQTT; the same seed gives the same readings. */

@@ -83,3 +83,21 @@ it('gives the installer company a fleet in varied states, one silent for hours a
   expect(checks[0].status).toBe('failed');
   expect(checks[0].reasons.length).toBeGreaterThan(0);
 });
+
+it('gives the cabin two monitors on one bank, the shunt leading and the BMS link beside it', async () => {
+  const monitors = await rows<{ id: string; label: string }>(
+    `SELECT d.id, d.label FROM devices d JOIN devices lead ON lead.system_id = d.system_id
+     WHERE lead.id = 'cw-demo-cabin' AND d.revoked_at IS NULL ORDER BY d.created_at, d.id`,
+  );
+  expect(monitors).toEqual([
+    { id: 'cw-demo-cabin', label: 'Main shunt' },
+    { id: 'cw-demo-cabin-bms', label: 'Pack BMS link' },
+  ]);
+  const second = DEMO_DEVICES.find((d) => d.id === 'cw-demo-cabin-bms')!;
+  expect(second.monitorOf).toBe('cw-demo-cabin');
+  // Its seeded history is the lead's alone: the second monitor's readings begin when it goes live.
+  const [{ n }] = await rows<{ n: string }>(`SELECT count(*) AS n FROM readings WHERE device_id = :id`, {
+    id: second.id,
+  });
+  expect(Number(n)).toBe(0);
+});

@@ -1,5 +1,5 @@
 import type { SystemSettings, SystemStatus, SystemSummary } from '@cellwarden/shared';
-import { Observable, catchError, concat, map, of, scan, startWith, takeWhile } from 'rxjs';
+import { Observable, catchError, concat, filter, map, of, scan, startWith, takeWhile } from 'rxjs';
 import { Api } from '../core/api';
 import { ApiProblem, apiProblem } from '../core/api-error';
 import { LiveStream, SystemStreamEvent } from '../core/live-stream';
@@ -41,8 +41,16 @@ export function liveStates(api: Api, stream: LiveStream, id: string): Observable
   );
 }
 
-/** The last hours of voltage and current: stored readings, then each live one appended. */
-export function liveChartPoints(api: Api, stream: LiveStream, id: string): Observable<ChartPoint[]> {
+/**
+ * The last hours of voltage and current: stored readings (the lead monitor's, as the server picks them), then each
+ * live one that `fromShownMonitor` accepts appended, so a second monitor of the bank never zigzags into the line.
+ */
+export function liveChartPoints(
+  api: Api,
+  stream: LiveStream,
+  id: string,
+  fromShownMonitor: (deviceId: string | undefined) => boolean = () => true,
+): Observable<ChartPoint[]> {
   const to = new Date();
   const from = new Date(to.getTime() - LIVE_WINDOW_MS);
   const stored = api.readings(id, from, to).pipe(
@@ -51,7 +59,10 @@ export function liveChartPoints(api: Api, stream: LiveStream, id: string): Obser
   );
   return concat(
     stored.pipe(map((points) => ({ kind: 'seed' as const, points }))),
-    stream.readings(id).pipe(map((reading) => ({ kind: 'live' as const, reading }))),
+    stream.readings(id).pipe(
+      filter((reading) => fromShownMonitor(reading.deviceId)),
+      map((reading) => ({ kind: 'live' as const, reading })),
+    ),
   ).pipe(
     scan<{ kind: 'seed'; points: ChartPoint[] } | { kind: 'live'; reading: ChartPoint }, ChartPoint[]>(
       (points, step) =>

@@ -80,4 +80,42 @@ describe('live state', () => {
     expect(after.accessEnded).toBe(true);
     expect(after.reading).toBeNull();
   });
+
+  it('keeps the headline on the lead monitor and gives a second monitor of the bank its own row', () => {
+    const monitor = (deviceId: string, lead: boolean, at: number, voltage: number) => ({
+      deviceId,
+      label: lead ? 'Main shunt' : 'BMS monitor',
+      lead,
+      reading: { ...reading(at, voltage), deviceId },
+    });
+    let state = seedLiveState({
+      systemId: 'van-1',
+      latestReading: { ...reading(1000, 13.2), deviceId: 'shunt' },
+      derived: derived(),
+      activeAlerts: [],
+      monitors: [monitor('shunt', true, 1000, 13.2), monitor('bms', false, 1500, 13.6)],
+    });
+    const event = (deviceId: string, at: number, voltage: number) =>
+      ({ type: 'reading', reading: { ...reading(at, voltage), deviceId }, derived: null }) as const;
+    // Interleaved: lead, second, lead, second — the headline reading only ever shows the lead's values.
+    const voltages: number[] = [];
+    for (const [device, at, volts] of [
+      ['shunt', 2000, 13.21],
+      ['bms', 2500, 13.61],
+      ['shunt', 3000, 13.22],
+      ['bms', 3500, 13.62],
+    ] as const) {
+      state = applyStreamEvent(state, event(device, at, volts));
+      voltages.push(state.reading!.voltage);
+    }
+    expect(voltages).toEqual([13.21, 13.21, 13.22, 13.22]);
+    expect(state.monitors.map((m) => [m.label, m.reading?.voltage])).toEqual([
+      ['Main shunt', 13.22],
+      ['BMS monitor', 13.62],
+    ]);
+    // A monitor the status did not know yet appears under its id.
+    state = applyStreamEvent(state, event('new-one', 4000, 12.9));
+    expect(state.monitors.map((m) => m.label)).toEqual(['Main shunt', 'BMS monitor', 'new-one']);
+    expect(state.reading!.voltage).toBe(13.22);
+  });
 });

@@ -19,12 +19,13 @@ import { SettingsApi } from '../core/settings-api';
 import { isStale } from '../core/staleness';
 import { SystemNav } from '../core/system-nav/system-nav';
 import { TemperaturePipe } from '../core/temperature-pipe';
+import { BankMonitors } from './bank-monitors/bank-monitors';
 import { ChargeColumn } from './charge-column/charge-column';
 import { isColdCharging } from './cold-charge';
 import { describeSeries } from './describe-series';
 import { FlagList } from './flag-list/flag-list';
 import { liveChartPoints, liveStates, systemOrMissing, systemSettings } from './live-feeds';
-import type { ActiveFlag } from './live-state';
+import { leadMonitorId, type ActiveFlag } from './live-state';
 import { ampHoursRemaining, morningHeadline } from './morning-headline';
 import { formatHours } from './runtime-text';
 import { sourceShares } from './source-shares';
@@ -46,6 +47,7 @@ import { toChartSeries } from './to-chart-series';
     SystemNav,
     ChargeColumn,
     FlagList,
+    BankMonitors,
   ],
   templateUrl: './live.html',
   styleUrl: './live.scss',
@@ -79,8 +81,16 @@ export class Live {
   );
   /** The system's clock: projections are about its morning. Until its settings arrive, the viewer's. */
   protected readonly systemZone = computed(() => this.settings()?.timeZone ?? viewerTimeZone());
+  // The chart follows the lead monitor, like the headline; until the status names it, every reading counts.
   private readonly points = toSignal(
-    this.id$.pipe(switchMap((id) => liveChartPoints(this.api, this.stream, id))),
+    this.id$.pipe(
+      switchMap((id) =>
+        liveChartPoints(this.api, this.stream, id, (deviceId) => {
+          const lead = this.leadId();
+          return lead === null || deviceId === undefined || deviceId === lead;
+        }),
+      ),
+    ),
     {
       initialValue: [],
     },
@@ -100,6 +110,10 @@ export class Live {
     return system && system !== 'missing' ? system : null;
   });
   protected readonly reading = computed(() => this.state()?.reading ?? null);
+  private readonly leadId = computed(() => {
+    const state = this.state();
+    return state ? leadMonitorId(state) : null;
+  });
   protected readonly derived = computed(() => this.state()?.derived ?? null);
   protected readonly stale = computed(() =>
     isStale(this.reading()?.measuredAt, this.now(), this.state()?.intervalMs),
