@@ -54,12 +54,27 @@ export * from './analytics/index';
 export * from './installer/index';
 export * from './health/index';
 export type * from './api/accounts-contract';
-export { MAX_PASSWORD_BYTES, MIN_PASSWORD_LENGTH } from './api/accounts-contract';
+export { COMPANY_ROLES, MAX_PASSWORD_BYTES, MIN_PASSWORD_LENGTH, ROLES } from './api/accounts-contract';
 export type * from './api/access-contract';
 export type * from './api/alerts-contract';
 export type * from './api/stream-contract';
-export { MAX_STREAM_SUBSCRIPTIONS, STREAM_CLOSE } from './api/stream-contract';
+export {
+  MAX_STREAM_SUBSCRIPTIONS,
+  STREAM_CLOSE,
+  STREAM_PROTOCOL,
+  STREAM_TOKEN_PREFIX,
+} from './api/stream-contract';
 export type * from './api/settings-contract';
+export { DEFAULT_EMAIL_FLAGS } from './api/settings-contract';
+export {
+  EARLIEST_QUERY_TIME,
+  LATEST_QUERY_TIME,
+  UUID_PATTERN,
+  epochMsSchema,
+  idSchema,
+  isoTimeSchema,
+  queryRangeMessage,
+} from './api/common-schemas';
 export type * from './api/installer-contract';
 export type * from './api/install-register-contract';
 export { COMPONENT_KINDS } from './api/install-register-contract';

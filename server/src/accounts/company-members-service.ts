@@ -1,12 +1,9 @@
-import type { CompanyMember, PublicUser, Role } from '@cellwarden/shared';
+import { COMPANY_ROLES, type CompanyMember, type PublicUser, type Role } from '@cellwarden/shared';
 import { isUuid } from '../database/sql-values';
 import { forbidden, invalidInput, notFound } from '../errors/app-error';
 import type { AccountLinksRepository } from './account-links-repository';
 import type { AccountsRepository } from './accounts-repository';
 import type { AccountsService } from './accounts-service';
-
-/** Roles a company gives; `owner` belongs to the person (their own systems), not to the company. */
-const COMPANY_ROLES: readonly Role[] = ['installer', 'support', 'admin'];
 
 /**
  * A company admin's people: change a member's roles, remove a member, withdraw an invitation. Every

@@ -1,17 +1,18 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { ROLES } from '@cellwarden/shared';
 import type { AccountsRepository } from './accounts-repository';
 import type { CompanyMembersService } from './company-members-service';
 import type { InvitationsService } from './invitations-service';
 
 const roles = z
   .array(
-    z.enum(['owner', 'installer', 'support', 'admin'], {
-      error: 'roles may hold owner, installer, support, admin',
+    z.enum(ROLES, {
+      error: `roles may hold ${ROLES.join(', ')}`,
     }),
   )
   .min(1, 'roles must name at least one role')
-  .max(4);
+  .max(ROLES.length);
 const invitationBody = z.object({
   email: z
     .string({ error: 'email is required' })

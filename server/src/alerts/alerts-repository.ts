@@ -1,5 +1,11 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { AlertEvent, FlagEpisode, FlagKind, FlagSeverity } from '@cellwarden/shared';
+import {
+  DEFAULT_EMAIL_FLAGS,
+  type AlertEvent,
+  type FlagEpisode,
+  type FlagKind,
+  type FlagSeverity,
+} from '@cellwarden/shared';
 import { epochMs as ms } from '../database/sql-values';
 
 const SELECT_ALERT = `SELECT a.id, a.system_id AS "systemId", a.kind, a.severity,
@@ -127,12 +133,12 @@ export function createAlertsRepository(sequelize: Sequelize) {
     recipients: (systemId: string, now: number) =>
       sequelize.query<{ userId: string; email: string; displayName: string; emailFlags: FlagKind[] }>(
         `SELECT u.id AS "userId", u.email, u.display_name AS "displayName",
-           coalesce(p.email_flags, ARRAY['low-charge','cold-charging','device-silent']::text[]) AS "emailFlags"
+           coalesce(p.email_flags, ARRAY[:defaultFlags]::text[]) AS "emailFlags"
          FROM users u LEFT JOIN user_preferences p ON p.user_id = u.id
          WHERE u.id = (SELECT owner_id FROM systems WHERE id = :systemId)
             OR u.id IN (SELECT grantee_user_id FROM grants WHERE system_id = :systemId AND revoked_at IS NULL
                           AND expires_at > to_timestamp(:now / 1000.0))`,
-        { replacements: { systemId, now }, type: QueryTypes.SELECT },
+        { replacements: { systemId, now, defaultFlags: [...DEFAULT_EMAIL_FLAGS] }, type: QueryTypes.SELECT },
       ),
   };
 }

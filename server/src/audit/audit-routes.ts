@@ -1,10 +1,11 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { epochMsSchema } from '@cellwarden/shared';
 import type { AuditService } from './audit-service';
 
 const auditQuery = z.object({
   limit: z.coerce.number({ error: 'limit must be a number' }).int().min(1).max(500).optional(),
-  before: z.coerce.number({ error: 'before must be a time in ms' }).int().positive().optional(),
+  before: epochMsSchema('before').optional(),
 });
 
 /** GET /api/systems/:systemId/audit. */

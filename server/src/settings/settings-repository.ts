@@ -1,9 +1,10 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type {
-  ChargeSource,
-  FlagThresholdSettings,
-  SystemSettings,
-  UserPreferences,
+import {
+  DEFAULT_EMAIL_FLAGS,
+  type ChargeSource,
+  type FlagThresholdSettings,
+  type SystemSettings,
+  type UserPreferences,
 } from '@cellwarden/shared';
 import { initModels } from '../database/models';
 
@@ -90,7 +91,7 @@ export function createSettingsRepository(sequelize: Sequelize) {
         attributes: ['temperatureUnit', 'emailFlags'],
         raw: true,
       });
-      return row ?? { temperatureUnit: 'C', emailFlags: ['low-charge', 'cold-charging', 'device-silent'] };
+      return row ?? { temperatureUnit: 'C', emailFlags: [...DEFAULT_EMAIL_FLAGS] };
     },
 
     async savePreferences(userId: string, preferences: UserPreferences): Promise<void> {

@@ -4,6 +4,8 @@ import { WebSocketServer, type WebSocket } from 'ws';
 import {
   MAX_STREAM_SUBSCRIPTIONS,
   STREAM_CLOSE,
+  STREAM_PROTOCOL,
+  STREAM_TOKEN_PREFIX,
   type PublicUser,
   type StreamMessage,
 } from '@cellwarden/shared';
@@ -15,8 +17,6 @@ import type { SystemsService } from '../systems/systems-service';
 import type { ReadingsHub } from '../telemetry/readings-hub';
 import { MAX_STREAM_MESSAGE_BYTES, parseStreamRequest } from './stream-requests';
 
-/** WebSocket subprotocol of Cellwarden's live stream, version 1. */
-export const STREAM_PROTOCOL = 'cellwarden.v1';
 const STREAM_PATH = '/api/stream';
 const HEARTBEAT_MS = 30000;
 // A client whose socket has this much unsent is too slow: its readings are dropped, not queued.
@@ -41,7 +41,7 @@ interface StreamClient {
 /** The browser's bearer token travels as a subprotocol, since browsers cannot set headers on a WebSocket. */
 function tokenFromProtocols(header: string | undefined): string | undefined {
   const offered = (header ?? '').split(',').map((p) => p.trim());
-  return offered.find((p) => p.startsWith('bearer.'))?.slice('bearer.'.length);
+  return offered.find((p) => p.startsWith(STREAM_TOKEN_PREFIX))?.slice(STREAM_TOKEN_PREFIX.length);
 }
 
 function refuseUpgrade(socket: Duplex, status: number, reason: string) {

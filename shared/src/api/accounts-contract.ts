@@ -1,7 +1,13 @@
 // Shapes of the sign-in, session and account endpoints (/api/auth, /api/company, /api/me).
 
+/** Every role, in the order forms list them; the type, the server's zod enum and the dashboard read this one list. */
+export const ROLES = ['owner', 'installer', 'support', 'admin'] as const;
+
 /** A role a person holds; one person may hold several. */
-export type Role = 'owner' | 'installer' | 'support' | 'admin';
+export type Role = (typeof ROLES)[number];
+
+/** Roles a company gives; `owner` belongs to a person (their own systems), not to a company. */
+export const COMPANY_ROLES: readonly Role[] = ['installer', 'support', 'admin'];
 
 /** What the API tells a client about a signed-in person. */
 export interface PublicUser {

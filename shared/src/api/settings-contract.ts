@@ -38,6 +38,9 @@ export interface SystemSettings {
   thresholdDefaults?: FlagThresholdSettings;
 }
 
+/** What a person is e-mailed about until they choose (the user_preferences column's default, too). */
+export const DEFAULT_EMAIL_FLAGS: readonly FlagKind[] = ['low-charge', 'cold-charging', 'device-silent'];
+
 /** GET/PUT /api/me/preferences. */
 export interface UserPreferences {
   temperatureUnit: 'C' | 'F';

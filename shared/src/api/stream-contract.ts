@@ -2,6 +2,15 @@
 import type { ReceivedReading } from './api-contract';
 import type { AlertEvent, DerivedState } from './alerts-contract';
 
+/** WebSocket subprotocol of Cellwarden's live stream, version 1. */
+export const STREAM_PROTOCOL = 'cellwarden.v1';
+
+/**
+ * Prefix of the second subprotocol, which carries the access token (`bearer.<token>`): browsers cannot set
+ * headers on a WebSocket.
+ */
+export const STREAM_TOKEN_PREFIX = 'bearer.';
+
 /** Most systems one subscribe may name, and one connection may hold. */
 export const MAX_STREAM_SUBSCRIPTIONS = 1000;
 

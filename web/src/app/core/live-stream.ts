@@ -1,5 +1,12 @@
 import { Injectable, InjectionToken, effect, inject, signal, untracked } from '@angular/core';
-import type { AlertEvent, DerivedState, ReceivedReading, StreamMessage } from '@cellwarden/shared';
+import {
+  STREAM_PROTOCOL,
+  STREAM_TOKEN_PREFIX,
+  type AlertEvent,
+  type DerivedState,
+  type ReceivedReading,
+  type StreamMessage,
+} from '@cellwarden/shared';
 import { Observable, Subject, filter, map, retry, share, tap, timer } from 'rxjs';
 import { WebSocketSubject, WebSocketSubjectConfig, webSocket } from 'rxjs/webSocket';
 import { Auth } from './auth';
@@ -126,7 +133,7 @@ export class LiveStream {
     this.socketToken = token;
     const socket = this.createSocket({
       url: `${protocol}//${location.host}/api/stream`,
-      protocol: ['cellwarden.v1', `bearer.${token}`],
+      protocol: [STREAM_PROTOCOL, `${STREAM_TOKEN_PREFIX}${token}`],
       openObserver: {
         next: () => {
           this.state.set('open');

@@ -1,3 +1,5 @@
+// The plain-language names of the roles, used by the team screen and the invitation page alike; the role list
+// itself (ROLES, COMPANY_ROLES) is shared/src/api/accounts-contract.ts.
 import type { Role } from '@cellwarden/shared';
 
 const LABELS: Record<Role, string> = {
@@ -11,9 +13,6 @@ const LABELS: Record<Role, string> = {
 export function roleLabel(role: Role): string {
   return LABELS[role];
 }
-
-/** The roles a company admin gives when inviting: `owner` belongs to a person's own systems, not a company. */
-export const COMPANY_ROLES: readonly Role[] = ['installer', 'support', 'admin'];
 
 const REACH: Record<Role, string> = {
   owner: 'Sees and manages their own systems, and decides who else may see them.',

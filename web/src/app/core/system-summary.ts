@@ -1,3 +1,5 @@
+import type { Role } from '@cellwarden/shared';
+
 export type { ApiErrorBody, HistoryPoint, ReceivedReading, SystemSummary } from '@cellwarden/shared';
 
 /** A user as the auth endpoints return it. */
@@ -5,5 +7,5 @@ export interface User {
   id: string;
   email: string;
   displayName: string;
-  roles: ('owner' | 'installer' | 'support' | 'admin')[];
+  roles: Role[];
 }

@@ -18,7 +18,7 @@ import {
 } from '../password-reset/password-rules';
 import { serverErrorOf, showServerError } from '../sign-in/server-error';
 import { InvitationApi } from './invitation-api';
-import { roleLabel } from './role-label';
+import { roleLabel } from '../core/role-label';
 
 type PreviewState =
   | { status: 'loading' }

@@ -8,11 +8,11 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import type { CompanyMember, Invitation, Role } from '@cellwarden/shared';
+import { COMPANY_ROLES, type CompanyMember, type Invitation, type Role } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
 import { LoadState, toLoadState } from '../access/load-state';
 import { Auth } from '../core/auth';
-import { COMPANY_ROLES, roleLabel, roleReach } from '../invitation/role-label';
+import { roleLabel, roleReach } from '../core/role-label';
 import { serverErrorOf, showServerError } from '../sign-in/server-error';
 import { TeamApi } from './team-api';
 
