@@ -46,8 +46,8 @@ export const CHARGE_EFFICIENCY_SIGMA: Readonly<Record<Chemistry, number>> = {
 /** A sample must have drawn at least this fraction of the open-circuit scale; shallower ones say too little. */
 export const MIN_SAMPLE_DEPTH = 0.3;
 
-/** Samples whose relative uncertainty exceeds this are not kept (plateau rests on LiFePO4, for instance). */
-export const MAX_SAMPLE_RELATIVE_SIGMA = 0.1;
+/** Samples less certain than this are not kept: on LiFePO4 that leaves rests below about 22 %, off the plateau. */
+export const MAX_SAMPLE_RELATIVE_SIGMA = 0.05;
 
 /**
  * State of charge at a BMS low-voltage cut-off and its uncertainty, fraction. Datasheets rate capacity down to
