@@ -95,6 +95,6 @@ function episodeWords(
   const ah = episodes.reduce((sum, e) => sum + e.ahIn, 0);
   const temperatures = episodes.map((e) => e[extreme]);
   const worst = extreme === 'lowestTemperature' ? Math.min(...temperatures) : Math.max(...temperatures);
-  const times = episodes.length === 1 ? 'once' : `${n(episodes.length, 0)} times`;
+  const times = ['once', 'twice'][episodes.length - 1] ?? `${n(episodes.length, 0)} times`;
   return `It was charged ${limit} ${times}, ${n(ah, 1)} Ah in all, at ${t(worst)} at worst.`;
 }
