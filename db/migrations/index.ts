@@ -12,6 +12,7 @@ import { alterRollups } from './2026.12.03T12.50.00.alter-rollups';
 import { alterGrantsEmail } from './2026.12.03T13.20.00.alter-grants-email';
 import { createBatteryHealth } from './2026.12.03T16.10.00.create-battery-health';
 import { createOnboardingAndRequests } from './2026.12.03T16.20.00.create-onboarding-and-requests';
+import { createInstallRegister } from './2026.12.03T16.30.00.create-install-register';
 
 /** Every migration, oldest first. Listed explicitly so the same code runs under tsx and jest. */
 export const migrations: Migration[] = [
@@ -28,4 +29,5 @@ export const migrations: Migration[] = [
   alterGrantsEmail,
   createBatteryHealth,
   createOnboardingAndRequests,
+  createInstallRegister,
 ];

@@ -3,6 +3,7 @@ import bcrypt from 'bcryptjs';
 import { SCENARIO_SUMMARIES } from '../../simulator/src/scenario-catalog';
 import demo from './demo-sign-ins.json';
 import { hashDeviceSecret } from '../../server/src/devices/device-secret';
+import { seedDemoInstallRegister } from './demo-install-register';
 
 // An invented scenario: every person, company and place here is fictional.
 
@@ -121,6 +122,7 @@ export async function seedDemoScenario(sequelize: Sequelize): Promise<boolean> {
           order,
         },
       );
+    await seedDemoInstallRegister(sequelize, systemIds.van, transaction);
     // The owner lets the fitters' support desk look at the van (not the cabin) for a month.
     await q(
       `INSERT INTO grants (system_id, grantee_company_id, access, granted_by, expires_at)

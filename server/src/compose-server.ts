@@ -22,6 +22,7 @@ import { createCommissioningRepository } from './installer/commissioning-reposit
 import { createCommissioningService } from './installer/commissioning-service';
 import { createEnergyBudgetsService } from './installer/energy-budgets-service';
 import { createInstallerRoutes } from './installer/installer-routes';
+import { createInstallRegisterComponent } from './install-register/install-register-component';
 import { createUploadsRepository } from './installer/uploads-repository';
 import { createUploadsService } from './installer/uploads-service';
 import { createUploadStorage } from './uploads/upload-storage';
@@ -181,6 +182,16 @@ export async function startServer(
     analytics.sweepSilence().catch((error) => logger.warn('silence check failed', { error: String(error) }));
   }, config.SILENCE_CHECK_SECONDS * 1000);
   silenceSweep.unref();
+  const installRegister = createInstallRegisterComponent({
+    sequelize,
+    systems,
+    audit,
+    settings: settingsRepository,
+    alerts,
+    alertsRepository,
+    logger,
+    now,
+  });
   const commissioningRepository = createCommissioningRepository(sequelize);
   await commissioningRepository.abandonRunning();
   const checks = createCommissioningService({
@@ -190,6 +201,7 @@ export async function startServer(
     audit,
     logger,
     now,
+    registeredRatingA: (systemId, sourceId) => installRegister.register.sourceRatingA(systemId, sourceId),
   });
   const uploadStorage = createUploadStorage({ root: config.UPLOAD_DIR });
   const uploads = createUploadsService({
@@ -211,6 +223,7 @@ export async function startServer(
       mailer,
       audit,
       now,
+      installRegister: installRegister.forRecord,
     }),
     budgets: createEnergyBudgetsService({ sequelize, systems, readings: readingsRepository, now }),
   });
@@ -356,6 +369,7 @@ export async function startServer(
       }),
       createSettingsRoutes(settings),
       installerRoutes,
+      installRegister.routes,
       createOnboardingRoutes(onboarding),
       createSystemShareRoutes(accessRequests),
       batteryHealth.routes,
@@ -388,6 +402,7 @@ export async function startServer(
       clearInterval(silenceSweep);
       await batteryHealth.stop();
       checks.close();
+      installRegister.close();
       stopAccessSignal();
       stream.close();
       await new Promise<void>((resolve) => http.close(() => resolve()));

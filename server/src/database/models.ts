@@ -7,6 +7,7 @@ import { defineLinkModels } from '../accounts/link-models';
 import { defineSessionModels } from '../accounts/session-models';
 import { defineAuditModels } from '../audit/audit-entry-model';
 import { definePreferenceModels } from '../settings/user-preference-model';
+import { defineInstallRegisterModels } from '../install-register/install-register-models';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -15,6 +16,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineLinkModels(sequelize),
     ...defineAuditModels(sequelize),
     ...definePreferenceModels(sequelize),
+    ...defineInstallRegisterModels(sequelize),
   };
   const {
     Company,
@@ -42,6 +44,9 @@ function defineModels(sequelize: Sequelize) {
   AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   User.hasOne(UserPreference, { as: 'preferences', foreignKey: 'userId' });
   UserPreference.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  // A component a circuit feeds is not removed before the circuit (RESTRICT in the migration too).
+  models.InstallComponent.hasMany(models.InstallCircuit, { as: 'circuits', foreignKey: 'componentId' });
+  models.InstallCircuit.belongsTo(models.InstallComponent, { as: 'component', foreignKey: 'componentId' });
   return models;
 }
 

@@ -39,6 +39,8 @@ export function toCheckResult(result: CommissioningResult): NonNullable<Commissi
     batteryVoltageReached: result.bulk?.batteryVoltageReachedV ?? null,
     cableDropV: result.cableDrop?.volts ?? null,
     reasons: result.verdict.findings.map((f) => f.message),
+    measuredFrom: result.bulk?.startedAt,
+    measuredTo: result.bulk?.endedAt,
   };
 }
 
@@ -53,6 +55,8 @@ export function createCommissioningService(deps: {
   audit: AuditService;
   logger: Logger;
   now: () => number;
+  /** The rated current the install register gives a charge source, which a check then takes. */
+  registeredRatingA?: (systemId: string, sourceId: string) => Promise<number | undefined>;
 }) {
   const running = new Map<string, RunningCheck>();
 
@@ -65,8 +69,20 @@ export function createCommissioningService(deps: {
   }
 
   return {
-    async start(user: PublicUser, systemId: string, request: CommissioningCheckRequest) {
+    async start(
+      user: PublicUser,
+      systemId: string,
+      asked: Omit<CommissioningCheckRequest, 'ratedCurrentA'> & { ratedCurrentA?: number },
+    ) {
       const system = await deps.systems.getFor(user, systemId, 'commission');
+      const ratedCurrentA =
+        (await deps.registeredRatingA?.(system.id, asked.sourceId)) ?? asked.ratedCurrentA;
+      if (ratedCurrentA === undefined)
+        throw invalidInput(
+          'ratedCurrentA',
+          'ratedCurrentA is required: the install register gives no rating for this charge source',
+        );
+      const request: CommissioningCheckRequest = { ...asked, ratedCurrentA };
       const settings = (await deps.settings.find(system.id))!;
       if (!settings.chargeSources.some((s) => s.id === request.sourceId))
         throw invalidInput(

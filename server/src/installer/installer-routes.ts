@@ -21,7 +21,8 @@ const checkBody = z.object({
   ratedCurrentA: z
     .number({ error: 'ratedCurrentA must be a number' })
     .positive('ratedCurrentA must be above 0')
-    .max(1000),
+    .max(1000)
+    .optional(),
   tolerancePercent: z.number({ error: 'tolerancePercent must be a number' }).min(1).max(50).optional(),
   windowSeconds: z
     .number({ error: 'windowSeconds must be a number' })
@@ -52,6 +53,24 @@ const budgetBody = z.object({
   ),
 });
 
+// The installer's pick of checks for the record: ids separated by commas in the query (empty: none), or a
+// list in an e-mail request's body; absent, the record carries the default choice.
+const checkIds = z
+  .array(z.string().uuid('checks must hold check ids'))
+  .max(100, 'checks may name at most 100 checks');
+const recordQuery = z.object({
+  checks: z
+    .union([
+      z
+        .string()
+        .max(4000)
+        .transform((s) => (s === '' ? [] : s.split(','))),
+      checkIds,
+    ])
+    .pipe(checkIds)
+    .optional(),
+});
+
 /** Commissioning checks, the commissioning record, uploads and energy budgets under /api/systems. */
 export function createInstallerRoutes(deps: {
   checks: CommissioningService;
@@ -71,8 +90,12 @@ export function createInstallerRoutes(deps: {
   router.get('/:systemId/commissioning-checks/:checkId', async (req, res) => {
     res.json({ check: await deps.checks.get(req.currentUser!, req.params.systemId, req.params.checkId) });
   });
+  router.get('/:systemId/commissioning-record/choices', async (req, res) => {
+    res.json({ choices: await deps.record.choices(req.currentUser!, req.params.systemId) });
+  });
   router.get('/:systemId/commissioning-record.pdf', async (req, res) => {
-    const pdf = await deps.record.render(req.currentUser!, req.params.systemId);
+    const { checks } = recordQuery.parse(req.query);
+    const pdf = await deps.record.render(req.currentUser!, req.params.systemId, checks);
     res.set({
       'Content-Type': 'application/pdf',
       'Content-Disposition': 'attachment; filename="commissioning-record.pdf"',
@@ -80,7 +103,10 @@ export function createInstallerRoutes(deps: {
     res.send(pdf);
   });
   router.post('/:systemId/commissioning-record/email', async (req, res) => {
-    res.status(202).json({ sentTo: await deps.record.emailToOwner(req.currentUser!, req.params.systemId) });
+    const { checks } = recordQuery.parse(req.body ?? {});
+    res
+      .status(202)
+      .json({ sentTo: await deps.record.emailToOwner(req.currentUser!, req.params.systemId, checks) });
   });
   router.post('/:systemId/uploads', deps.uploadMiddleware, async (req, res) => {
     const upload = await deps.uploads.add(

@@ -38,6 +38,8 @@ describe('toRecordCheck', () => {
       cableDropV: null,
       verdict: 'FAIL',
       reasons: ['Mean current 24.5 A is below 27 A'],
+      startedAt: 0,
+      finishedAt: 300_000,
     });
   });
 

@@ -15,6 +15,38 @@ export interface CommissioningRecordCheck {
   cableDropV: number | null;
   verdict: 'PASS' | 'FAIL';
   reasons: string[];
+  /** When the check started and finished, ms (absent in records made before the chart). */
+  startedAt?: number;
+  finishedAt?: number | null;
+  /** Current (the source's when the monitor reports it, else the pack's) and voltage over the window. */
+  chart?: RecordChartPoint[];
+}
+
+/** One point of a check's chart. */
+export interface RecordChartPoint {
+  at: number;
+  currentA: number;
+  voltage: number;
+}
+
+/** One registered component as the record lists it. */
+export interface RecordComponent {
+  name: string;
+  kind: string;
+  /** Its ratings in words (`200 Ah LiFePO4, BMS 200 A continuous, 300 A peak`). */
+  ratings: string;
+}
+
+/** One registered circuit as the record's table shows it. */
+export interface RecordCircuit {
+  name: string;
+  feeds: string;
+  conductor: string;
+  protection: string;
+  fuseDistance: string;
+  verdict: 'PASS' | 'FAIL';
+  summary: string;
+  rule: string;
 }
 
 /** A photo of the installation: JPEG or PNG bytes (null when the stored file could not be read) and a caption. */
@@ -33,6 +65,11 @@ export interface CommissioningRecordInput {
     chargeSources: Pick<ChargeSource, 'id' | 'kind' | 'label' | 'ratedCurrentA'>[];
   };
   installer: { name: string; company: string };
+  /** The system's owner, for the cover and the signature. */
+  owner?: { name: string; email: string };
+  /** The install register, when there is one. */
+  components?: RecordComponent[];
+  circuits?: RecordCircuit[];
   /** When the record was made, ms since the epoch. */
   recordedAt: number;
   /** IANA zone for the date; UTC when absent. */
@@ -61,5 +98,7 @@ export function toRecordCheck(
     cableDropV: result?.cableDropV ?? null,
     verdict: check.status === 'passed' ? 'PASS' : 'FAIL',
     reasons: result?.reasons ?? [],
+    startedAt: check.startedAt,
+    finishedAt: check.finishedAt,
   };
 }

@@ -2,6 +2,8 @@ import PDFDocument from 'pdfkit';
 import type { CommissioningRecordInput } from './commissioning-record-input';
 import { RECORD_TITLE, writeCautions, writeChecks, writeHeader, writeSystem } from './record-sections';
 import { writePhotos } from './record-photos';
+import { writeCircuits, writeComponents } from './record-register';
+import { writeSignatures } from './record-signatures';
 
 /** Rendering switches; the defaults are what users download. */
 export interface RecordRenderOptions {
@@ -22,11 +24,19 @@ export function renderCommissioningRecord(
     info: { Title: RECORD_TITLE, Creator: 'Cellwarden', CreationDate: new Date(record.recordedAt) },
   });
   const done = collect(doc);
+  // Cover, register, checks, cautions and signatures; photos last, each on its own page.
   writeHeader(doc, record);
   writeSystem(doc, record);
-  writeChecks(doc, record.checks);
-  writePhotos(doc, record.photos);
+  if (record.components !== undefined || record.circuits !== undefined) {
+    doc.addPage();
+    writeComponents(doc, record.components ?? []);
+    writeCircuits(doc, record.circuits ?? []);
+  }
+  doc.addPage();
+  writeChecks(doc, record.checks, record.timeZone);
   writeCautions(doc);
+  writeSignatures(doc, record);
+  writePhotos(doc, record.photos);
   numberPages(doc);
   doc.end();
   return done;

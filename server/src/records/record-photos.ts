@@ -5,13 +5,16 @@ import { contentBottom, contentWidth, heading } from './record-layout';
 // pdfkit's openImage is public but missing from @types/pdfkit.
 type ImageOpener = { openImage(data: Buffer): { width: number; height: number } };
 
-const MAX_PHOTO_HEIGHT = 260;
+// A photo has its page: up to about two thirds of an A4 page's height, leaving room for its caption.
+const MAX_PHOTO_HEIGHT = 520;
 
-/** Each photo scaled to fit with its caption; a photo that cannot be read is listed, not fatal. */
+/** Each photo on its own page, scaled to fit, with its caption; one that cannot be read is listed, not fatal. */
 export function writePhotos(doc: PDFKit.PDFDocument, photos: CommissioningRecordPhoto[]): void {
-  if (photos.length === 0) return;
-  heading(doc, 'Photos');
-  photos.forEach((photo, index) => writePhoto(doc, photo, index + 1));
+  photos.forEach((photo, index) => {
+    doc.addPage();
+    if (index === 0) heading(doc, 'Photos');
+    writePhoto(doc, photo, index + 1);
+  });
 }
 
 function writePhoto(doc: PDFKit.PDFDocument, photo: CommissioningRecordPhoto, number: number): void {

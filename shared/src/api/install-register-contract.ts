@@ -163,3 +163,16 @@ export interface CircuitDesignVsMeasured {
   /** Plain words: what peaked, for how long, against which ratings. */
   sentence: string;
 }
+
+/** GET /api/systems/:id/commissioning-record/choices: which checks the record can carry, and which by default. */
+export interface RecordCheckChoice {
+  checkId: string;
+  sourceId: string;
+  status: 'running' | 'passed' | 'failed' | 'abandoned';
+  startedAt: number;
+  ratedCurrentA: number;
+  /** In the record unless the installer picks otherwise. */
+  byDefault: boolean;
+  /** Why it is left out by default: a later check of the same source, a rating no longer fitted, or no verdict. */
+  leftOutBecause: 'superseded' | 'stale' | 'unfinished' | null;
+}

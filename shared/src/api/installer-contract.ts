@@ -33,6 +33,9 @@ export interface CommissioningCheck {
     batteryVoltageReached: number | null;
     cableDropV: number | null;
     reasons: string[];
+    /** Measured times of the bulk phase's first and last readings, ms (checks since the record's chart). */
+    measuredFrom?: number;
+    measuredTo?: number;
   } | null;
 }
 
