@@ -125,6 +125,18 @@ describe('capacity tracker', () => {
     expect(sample.usableAh).toBeCloseTo(counted, 6);
   });
 
+  it('does not count charge into an already full battery as stored', () => {
+    // Five hours of 2 A float after the sync (below the charged voltage, so no re-sync) go to heat, not charge.
+    const floatThenUse = [
+      ...minutes(T0, 5, 14.2, 2),
+      ...minutes(T0 + 5 * MINUTE, 300, 13.5, 2),
+      ...minutes(T0 + 305 * MINUTE, 480, 13.0, -10),
+      ...minutes(T0 + 785 * MINUTE, 121, 12.9, 0),
+    ];
+    const [sample] = samplesOf(LIFEPO4, floatThenUse);
+    expect(sample.countedAh).toBeCloseTo(80 * PEUKERT_10A, 6);
+  });
+
   it('counts nothing across a gap in the data, since what flowed then is unknown', () => {
     const stream = fullThenDischargeThenRest(8, 12.9).filter(
       (m) => m.start < T0 + 100 * MINUTE || m.start >= T0 + 110 * MINUTE,

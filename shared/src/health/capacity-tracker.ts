@@ -91,7 +91,9 @@ function countMinute(
     peukertEffectiveCurrent(battery.ratedCapacityAh, battery.ratedHours, a, profile.peukertExponent);
   const drainAh = meanDischargeA > 0 ? (rated(meanDischargeA) / meanDischargeA) * m.ahOut : 0;
   const storedAh = m.ahIn * profile.chargeEfficiency;
-  const countedAh = state.countedAh + drainAh - storedAh;
+  // A full battery stores nothing more: float and tail current into it is lost to heat and gassing, as the
+  // SoC estimator's clamp at 100 % also has it. So the count never goes below zero.
+  const countedAh = Math.max(0, state.countedAh + drainAh - storedAh);
   return {
     ...state,
     countedAh,
