@@ -65,7 +65,7 @@ export function emptyCheckpoint(system: HealthSystem): HealthCheckpoint {
  */
 export function createBatteryHealthJob(deps: {
   repository: BatteryHealthRepository;
-  logger: Logger;
+  logger: Pick<Logger, 'warn'>;
   limits?: HealthJobLimits;
 }) {
   const minutesPerRun = deps.limits?.minutesPerRun ?? 20_160;
