@@ -41,8 +41,10 @@ export type {
   HistoryPoint,
   MonitorLatest,
   ReceivedReading,
+  SystemAction,
   SystemSummary,
 } from './api/api-contract';
+export { SYSTEM_ACTIONS } from './api/api-contract';
 export {
   READINGS_CSV_HEADER,
   ReadingsCsvError,

@@ -1,18 +1,11 @@
-import type { PublicUser } from '@cellwarden/shared';
+import type { PublicUser, SystemAction } from '@cellwarden/shared';
 
 // The one object-level access rule of Cellwarden. Every route, every stream subscription and every export asks
 // `decideAccess`; nothing else compares owner ids or company ids. (OWASP API Security Top 10 2023, API1: Broken
 // Object Level Authorization, is why this lives in one place.)
 
-/** What one may do to one system. */
-export type SystemAction =
-  | 'view' // read readings, status, alerts, settings
-  | 'export'
-  | 'configure' // change settings, acknowledge alerts, upload photos and logs
-  | 'manage-devices'
-  | 'manage-grants'
-  | 'read-audit'
-  | 'commission';
+/** What one may do to one system: the list lives in shared/ so the dashboard names the same actions. */
+export type { SystemAction };
 
 /** The facts about a system the rule needs. */
 export interface SystemOwnership {

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { SYSTEM_ACTIONS } from '@cellwarden/shared';
 import type { SystemsService } from './systems-service';
 
 /** Systems the signed-in user may see. */
@@ -8,7 +9,10 @@ export function createSystemsRoutes(systems: SystemsService): Router {
     res.json({ systems: await systems.listFor(req.currentUser!) });
   });
   router.get('/:systemId', async (req, res) => {
-    res.json({ system: await systems.getFor(req.currentUser!, req.params.systemId) });
+    const { system, access } = await systems.openFor(req.currentUser!, req.params.systemId);
+    // In the rule's own order, so the list reads the same for everyone.
+    const allowedActions = SYSTEM_ACTIONS.filter((action) => access.allowed.has(action));
+    res.json({ system: { ...system, allowedActions } });
   });
   return router;
 }

@@ -13,6 +13,18 @@ export interface MonitorLatest {
   reading: ReceivedReading | null;
 }
 
+/** What one may do to one system (the access rule, server/src/access/access-policy.ts, decides). */
+export const SYSTEM_ACTIONS = [
+  'view', // read readings, status, alerts, settings
+  'export',
+  'configure', // change settings, acknowledge alerts, upload photos and logs
+  'manage-devices',
+  'manage-grants',
+  'read-audit',
+  'commission',
+] as const;
+export type SystemAction = (typeof SYSTEM_ACTIONS)[number];
+
 /** One battery system the signed-in user may see, as GET /api/systems returns it. */
 export interface SystemSummary {
   id: string;
@@ -30,6 +42,11 @@ export interface SystemSummary {
   }[];
   /** When any of its monitors last reported, ms; null when none ever did. */
   lastSeenAt?: number | null;
+  /**
+   * What the asking person may do with it, as the access rule decides (GET /api/systems/:id only), so a screen
+   * can show a form read-only before anyone tries.
+   */
+  allowedActions?: SystemAction[];
 }
 
 /** One point of GET /api/systems/:id/readings. */

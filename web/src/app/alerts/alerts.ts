@@ -24,9 +24,9 @@ import { RouterLink } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
 import { map, switchMap } from 'rxjs';
 import { AccessApi } from '../access/access-api';
+import { Api } from '../core/api';
 import { AlertsApi } from '../core/alerts-api';
 import { loadFailureText } from '../core/api-error';
-import { Auth } from '../core/auth';
 import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';
 import { formatInstant } from '../core/date-time';
 import { DateTimePipe } from '../core/date-time-pipe';
@@ -72,7 +72,7 @@ export class Alerts {
   private readonly preferences = inject(Preferences);
   private readonly breakpoints = inject(BreakpointObserver);
   private readonly accessApi = inject(AccessApi);
-  private readonly auth = inject(Auth);
+  private readonly systemsApi = inject(Api);
   private readonly locale = inject(LOCALE_ID);
 
   /** The system id from the route. */
@@ -104,7 +104,7 @@ export class Alerts {
   );
 
   private readonly rights = toSignal(
-    toObservable(this.id).pipe(switchMap((id) => rightsLoad(this.accessApi, id))),
+    toObservable(this.id).pipe(switchMap((id) => rightsLoad(this.systemsApi, this.accessApi, id))),
     {
       initialValue: null,
     },
@@ -113,12 +113,7 @@ export class Alerts {
   protected readonly readOnlyReason = computed(() => {
     const rights = this.rights();
     if (!rights) return null;
-    const right = configureRight(
-      rights.owner,
-      this.auth.currentUser()?.roles ?? null,
-      rights.received,
-      this.id(),
-    );
+    const right = configureRight(rights.allowed, rights.received, this.id());
     if (right.canConfigure) return null;
     return readOnlyReason(right, 'you can read these alerts but not acknowledge them', (ms) =>
       formatInstant(ms, 'dateTime', this.locale),

@@ -15,45 +15,52 @@ const grant = (over: Partial<Grant> = {}): Grant => ({
   active: true,
   ...over,
 });
-const support = ['support'];
 const READ_ONLY = { canConfigure: false, viewGrant: null };
+const OWNER = [
+  'view',
+  'export',
+  'configure',
+  'manage-devices',
+  'manage-grants',
+  'read-audit',
+  'commission',
+] as const;
+const VIEW = ['view', 'export'] as const;
 
 describe('configureRight', () => {
-  it('lets the owner act', () =>
-    expect(configureRight('owner', ['owner'], [], 'van-1').canConfigure).toBe(true));
+  it('lets anyone act whom the server allows to configure: owner, installer, configure grant', () => {
+    expect(configureRight(OWNER, [], 'van-1').canConfigure).toBe(true);
+    expect(
+      configureRight(['view', 'export', 'configure', 'manage-devices', 'commission'], [], 'van-1'),
+    ).toEqual({
+      canConfigure: true,
+      viewGrant: null,
+    });
+    expect(
+      configureRight(['view', 'export', 'configure'], [grant({ access: 'configure' })], 'van-1').canConfigure,
+    ).toBe(true);
+  });
 
-  it('lets a person with an active grant to configure act', () =>
-    expect(configureRight('not-owner', support, [grant({ access: 'configure' })], 'van-1').canConfigure).toBe(
-      true,
-    ));
-
-  it('keeps a support person’s view grant read-only, naming the grant', () =>
-    expect(configureRight('not-owner', support, [grant()], 'van-1')).toEqual({
+  it('keeps a view grant read-only, naming the grant', () =>
+    expect(configureRight(VIEW, [grant()], 'van-1')).toEqual({
       canConfigure: false,
       viewGrant: { grantedBy: 'Mara Owner', expiresAt: 5_000 },
     }));
 
-  it('keeps a company admin read-only', () =>
-    expect(configureRight('not-owner', ['admin'], [], 'van-1')).toEqual(READ_ONLY));
+  it('keeps a company admin read-only, with no grant to name', () =>
+    expect(configureRight(['view', 'export', 'read-audit'], [], 'van-1')).toEqual(READ_ONLY));
 
-  it('ignores grants of other systems and ended grants', () =>
+  it('names only an active grant of this system', () =>
     expect(
       configureRight(
-        'not-owner',
-        support,
-        [grant({ systemId: 'cabin-1', access: 'configure' }), grant({ access: 'configure', active: false })],
+        VIEW,
+        [grant({ systemId: 'cabin-1' }), grant({ active: false, expiresAt: 9_000 })],
         'van-1',
       ),
     ).toEqual(READ_ONLY));
 
-  it('leaves an installer’s form open, since only the server knows whose installation it is', () =>
-    expect(configureRight('not-owner', ['installer'], [grant()], 'van-1').canConfigure).toBe(true));
-
-  it('leaves the form open when it cannot tell, for the server to decide', () => {
-    expect(configureRight('unknown', support, [], 'van-1').canConfigure).toBe(true);
-    expect(configureRight('not-owner', null, [], 'van-1').canConfigure).toBe(true);
-    expect(configureRight('not-owner', support, null, 'van-1').canConfigure).toBe(true);
-  });
+  it('leaves the form open when the server did not say, for the server to decide on save', () =>
+    expect(configureRight(null, null, 'van-1').canConfigure).toBe(true));
 });
 
 describe('readOnlyReason', () => {

@@ -1,7 +1,7 @@
-import { HttpErrorResponse } from '@angular/common/http';
-import type { Grant } from '@cellwarden/shared';
+import type { Grant, SystemAction } from '@cellwarden/shared';
 import { Observable, catchError, forkJoin, map, of } from 'rxjs';
 import type { AccessApi } from '../access/access-api';
+import type { Api } from './api';
 
 /** Whether the person may change a system (settings, acknowledgements), and the view grant they hold if not. */
 export interface ConfigureRight {
@@ -10,28 +10,20 @@ export interface ConfigureRight {
   viewGrant: { grantedBy: string; expiresAt: number } | null;
 }
 
-/** What asking for the system's grants told: only its owner may list them. */
-export type OwnerAnswer = 'owner' | 'not-owner' | 'unknown';
-
 const MAY_CONFIGURE: ConfigureRight = { canConfigure: true, viewGrant: null };
 
 /**
- * The access rule (server/src/access/access-policy.ts) as far as the dashboard can see it: the owner may
- * configure, and so may anyone with an active grant to configure. Installers may when the system is their
- * company's, which the dashboard cannot see, so their form stays open and the server decides. Everyone else
- * (support staff, company admins, owners of other systems) sees the settings through a grant to view, or as
- * a company admin, and cannot change them. With any answer missing the form stays open.
+ * What the access rule (server/src/access/access-policy.ts) lets this person do, as the server reported it with
+ * the system (`allowedActions`), so a form shows read-only before anyone tries. The view grant the person holds
+ * is named in the reason when there is one. With the answer missing the form stays open and the server decides.
  */
 export function configureRight(
-  owner: OwnerAnswer,
-  roles: readonly string[] | null,
+  allowed: readonly SystemAction[] | null,
   received: readonly Grant[] | null,
   systemId: string,
 ): ConfigureRight {
-  if (owner !== 'not-owner' || roles === null || received === null) return MAY_CONFIGURE;
-  const grants = received.filter((g) => g.systemId === systemId && g.active);
-  if (grants.some((g) => g.access === 'configure')) return MAY_CONFIGURE;
-  if (roles.includes('installer')) return MAY_CONFIGURE;
+  if (allowed === null || allowed.includes('configure')) return MAY_CONFIGURE;
+  const grants = (received ?? []).filter((g) => g.systemId === systemId && g.active);
   const view = [...grants].sort((a, b) => b.expiresAt - a.expiresAt)[0];
   return {
     canConfigure: false,
@@ -61,18 +53,16 @@ function capitalised(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
-/** What the dashboard can learn of the person's rights on a system before they try to change anything. */
+/** The person's actions on a system as the server decides them, and the grants they received (to name one). */
 export function rightsLoad(
-  api: AccessApi,
+  api: Api,
+  accessApi: AccessApi,
   systemId: string,
-): Observable<{ owner: OwnerAnswer; received: Grant[] | null }> {
-  // Only the owner may list a system's grants (403 for anyone else who may see it).
-  const owner = api.grants(systemId).pipe(
-    map((): OwnerAnswer => 'owner'),
-    catchError((error: unknown) =>
-      of<OwnerAnswer>(error instanceof HttpErrorResponse && error.status === 403 ? 'not-owner' : 'unknown'),
-    ),
+): Observable<{ allowed: SystemAction[] | null; received: Grant[] | null }> {
+  const allowed = api.system(systemId).pipe(
+    map((system) => system.allowedActions ?? null),
+    catchError(() => of(null)),
   );
-  const received = api.receivedGrants().pipe(catchError(() => of(null)));
-  return forkJoin({ owner, received });
+  const received = accessApi.receivedGrants().pipe(catchError(() => of(null)));
+  return forkJoin({ allowed, received });
 }

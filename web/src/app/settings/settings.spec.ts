@@ -161,8 +161,20 @@ describe('Settings', () => {
     const { fixture, http, loader, input } = await render();
     signedInAs(['support']);
     http
-      .expectOne('/api/systems/van-1/grants')
-      .flush({ error: { code: 'forbidden', message: 'no' } }, { status: 403, statusText: 'Forbidden' });
+      .expectOne('/api/systems/van-1')
+      .flush({
+        system: {
+          id: 'van-1',
+          name: 'Blue van',
+          kind: 'van',
+          chemistry: 'lifepo4',
+          nominalVoltage: 12,
+          ratedCapacityAh: 200,
+          usableCapacityAh: 180,
+          latestReading: null,
+          allowedActions: ['view', 'export'],
+        },
+      });
     http.expectOne('/api/grants/received').flush({
       grants: [
         {
@@ -192,10 +204,24 @@ describe('Settings', () => {
     http.expectNone((r) => r.method === 'PUT');
   });
 
-  it('keeps the form open for someone who may manage the system', async () => {
+  it('keeps the form open for someone the server lets configure, such as the installer', async () => {
     const { fixture, http, input } = await render();
     signedInAs(['owner']);
-    http.expectOne('/api/systems/van-1/grants').flush({ grants: [] });
+    http
+      .expectOne('/api/systems/van-1')
+      .flush({
+        system: {
+          id: 'van-1',
+          name: 'Blue van',
+          kind: 'van',
+          chemistry: 'lifepo4',
+          nominalVoltage: 12,
+          ratedCapacityAh: 200,
+          usableCapacityAh: 180,
+          latestReading: null,
+          allowedActions: ['view', 'export', 'configure', 'manage-devices', 'commission'],
+        },
+      });
     http.expectOne('/api/grants/received').flush({ grants: [] });
     await fixture.whenStable();
     expect(await (await input('Name'))!.isDisabled()).toBe(false);

@@ -24,8 +24,8 @@ import { MatSelectModule } from '@angular/material/select';
 import type { SystemSettings } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
 import { AccessApi } from '../access/access-api';
+import { Api } from '../core/api';
 import { ApiProblem, apiProblem, loadFailureText } from '../core/api-error';
-import { Auth } from '../core/auth';
 import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';
 import { formatInstant } from '../core/date-time';
 import { Preferences } from '../core/preferences';
@@ -63,7 +63,7 @@ export class Settings {
   private readonly preferences = inject(Preferences);
   private readonly injector = inject(Injector);
   private readonly accessApi = inject(AccessApi);
-  private readonly auth = inject(Auth);
+  private readonly systemsApi = inject(Api);
   private readonly locale = inject(LOCALE_ID);
 
   /** The system id from the route. */
@@ -78,7 +78,7 @@ export class Settings {
     },
   );
   private readonly rights = toSignal(
-    toObservable(this.id).pipe(switchMap((id) => rightsLoad(this.accessApi, id))),
+    toObservable(this.id).pipe(switchMap((id) => rightsLoad(this.systemsApi, this.accessApi, id))),
     {
       initialValue: null,
     },
@@ -87,7 +87,7 @@ export class Settings {
   private readonly right = computed(() => {
     const rights = this.rights();
     if (!rights) return null;
-    return configureRight(rights.owner, this.auth.currentUser()?.roles ?? null, rights.received, this.id());
+    return configureRight(rights.allowed, rights.received, this.id());
   });
   protected readonly saving = signal(false);
   /** Set when the server refused a save the form did not know to be refused. */
