@@ -1,8 +1,83 @@
 // One linter for the whole repository (run by `npm test`): typescript-eslint everywhere, angular-eslint's
 // TypeScript and template rules for the dashboard. Formatting is Prettier's job, not ESLint's.
+import { builtinModules } from 'node:module';
 import js from '@eslint/js';
 import angular from 'angular-eslint';
 import tseslint from 'typescript-eslint';
+
+// Import boundaries (DEVELOPERS.md, "Models, raw SQL and boundaries"): the arrows of the tree run one way.
+const NODE_BUILTINS = builtinModules.filter((name) => !name.startsWith('_'));
+const pureSharedRule = [
+  'error',
+  {
+    paths: NODE_BUILTINS.map((name) => ({ name, message: 'shared/ is pure: no Node built-ins.' })),
+    patterns: [
+      { group: ['node:*'], message: 'shared/ is pure: no Node built-ins.' },
+      {
+        group: ['@angular/*', 'express', 'express/*', 'sequelize', 'sequelize/*', 'pg', 'pg/*', 'ws', 'mqtt'],
+        message:
+          'shared/ is pure: no framework, database or network packages (they belong to server/ or web/).',
+      },
+      { group: ['aedes', 'aedes-*', 'mqtt/*'], message: 'shared/ is pure: no broker packages.' },
+      {
+        group: ['**/server/**', '**/web/**', '**/simulator/**', '**/db/**'],
+        message: 'shared/ imports nothing above it.',
+      },
+    ],
+  },
+];
+// A feature folder of the dashboard (web/src/app/<feature>/…) imports core/ and its own folder only; a helper two
+// features need moves to core/. Written per folder depth, since the rule sees the import as written.
+const featureBoundary = (depth, severity) => {
+  const up = '../'.repeat(depth);
+  return {
+    files: [`web/src/app/*/${'*/'.repeat(depth - 1)}*.ts`],
+    ignores: ['web/src/app/core/**'],
+    rules: {
+      'no-restricted-imports': [
+        severity,
+        {
+          patterns: [
+            {
+              group: [`${up}*`, `!${up}core`, `!${up}core/**`],
+              message: 'A feature imports core/ and its own folder only; move a shared helper to core/.',
+            },
+          ],
+        },
+      ],
+    },
+  };
+};
+// Imports across features that were there when the rule came (each a real dependency, not a misplaced helper):
+// warned, not failed, until they move. New ones fail. The list is in DEVELOPERS.md.
+const KNOWN_FEATURE_CROSSINGS = [
+  'web/src/app/alerts/alerts.ts', // access/access-api
+  'web/src/app/settings/settings.ts', // access/access-api
+  'web/src/app/received-access/received-access.ts', // access/access-api
+  'web/src/app/onboarding/monitor-setup/monitor-setup.ts', // access/access-api
+  'web/src/app/access/system-requests/system-requests.ts', // onboarding/onboarding-api, requests/*
+  'web/src/app/requests/requests.ts', // onboarding/onboarding-api
+  'web/src/app/requests/requests-notice.ts', // onboarding/onboarding-api
+];
+// Seeders that still write through a repository (readings, alerts and system settings have no model): warned.
+const KNOWN_SEEDER_REPOSITORY_IMPORTS = ['db/seeders/demo-fleet.ts', 'db/seeders/demo-history.ts'];
+// Seeders go through models and services, never a server repository (the one arrow back up the tree).
+const seederBoundary = (files, severity) => ({
+  files,
+  rules: {
+    'no-restricted-imports': [
+      severity,
+      {
+        patterns: [
+          {
+            group: ['**/server/src/**/*-repository'],
+            message: 'Seeders use models or services, not server repositories.',
+          },
+        ],
+      },
+    ],
+  },
+});
 
 export default tseslint.config(
   { ignores: ['dist/**', '.angular/**', 'coverage/**', '.data/**', 'node_modules/**'] },
@@ -54,4 +129,17 @@ export default tseslint.config(
       },
     },
   },
+  { files: ['shared/**/*.ts'], rules: { 'no-restricted-imports': pureSharedRule } },
+  featureBoundary(1, 'error'),
+  featureBoundary(2, 'error'),
+  featureBoundary(3, 'error'),
+  featureBoundary(4, 'error'),
+  ...[1, 2, 3, 4]
+    .map((depth) => ({
+      ...featureBoundary(depth, 'warn'),
+      files: KNOWN_FEATURE_CROSSINGS.filter((file) => file.split('/').length === depth + 4),
+    }))
+    .filter((config) => config.files.length > 0),
+  seederBoundary(['db/seeders/**/*.ts'], 'error'),
+  seederBoundary(KNOWN_SEEDER_REPOSITORY_IMPORTS, 'warn'),
 );

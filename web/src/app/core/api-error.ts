@@ -1,5 +1,7 @@
 import { HttpErrorResponse } from '@angular/common/http';
+import type { AbstractControl, FormGroup } from '@angular/forms';
 import type { ApiErrorBody } from '@cellwarden/shared';
+import { blobText } from './blob-files';
 
 /** An API failure as the screens show it. */
 export interface ApiProblem {
@@ -47,4 +49,56 @@ export function loadFailureText(problem: ApiProblem, fallback: string): string {
   if (problem.code === ACCESS_ENDED) return problem.message;
   if (problem.status === 0 && problem.code !== 'unexpected') return problem.message;
   return fallback;
+}
+
+/** What a failed API call means for a form: the message, and the field it belongs under (if any). */
+export interface ServerError {
+  message: string;
+  field: string | null;
+}
+
+/** The body of a failed call as a form shows it (read by `apiProblem`), or the form's own fallback. */
+export function serverErrorOf(error: unknown, fallback: string): ServerError {
+  const problem = apiProblem(error);
+  if (problem.code !== 'unexpected' && !String(problem.code).startsWith('http-'))
+    return { message: problem.message, field: problem.field ?? null };
+  if (problem.status === 0 && error instanceof HttpErrorResponse)
+    return { message: 'The server cannot be reached. Check the connection and try again.', field: null };
+  return { message: fallback, field: null };
+}
+
+/**
+ * Puts the server's message under the form control its `field` names (as the `server` error, cleared
+ * on the next edit) and returns null; returns the message when no control matches, for a form-level alert.
+ */
+export function showServerError(form: FormGroup, error: ServerError): string | null {
+  const control: AbstractControl | null = error.field ? form.get(error.field) : null;
+  if (!control) return error.message;
+  control.setErrors({ ...control.errors, server: error.message });
+  control.markAsTouched();
+  return null;
+}
+
+/**
+ * The problem of a failed CSV call. A download asked for a Blob, so its `{ error }` body arrives as a Blob and
+ * is read as JSON here before `apiProblem` looks at it.
+ */
+export async function transferProblem(error: unknown): Promise<ApiProblem> {
+  if (error instanceof HttpErrorResponse && error.error instanceof Blob) {
+    let body: unknown = null;
+    try {
+      body = JSON.parse(await blobText(error.error));
+    } catch {
+      // Not our JSON (a proxy's page): apiProblem falls back to the status.
+    }
+    return apiProblem(
+      new HttpErrorResponse({
+        error: body,
+        status: error.status,
+        statusText: error.statusText,
+        url: error.url ?? undefined,
+      }),
+    );
+  }
+  return apiProblem(error);
 }

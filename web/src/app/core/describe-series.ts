@@ -1,7 +1,11 @@
-import type { ChartPoint } from './to-chart-series';
+/** What the summary reads of a point: the live chart's ChartPoint and history's points both have it. */
+export interface SeriesPoint {
+  voltage: number;
+  current: number;
+}
 
 /** A sentence summarising voltage and current over some points, for screen readers beside a chart. */
-export function describeSeries(points: readonly ChartPoint[], span: string): string {
+export function describeSeries(points: readonly SeriesPoint[], span: string): string {
   if (points.length === 0) return `No readings ${span}.`;
   const voltages = points.map((p) => p.voltage);
   const currents = points.map((p) => p.current);

@@ -1,5 +1,5 @@
 import { Observable, catchError, map, of, startWith } from 'rxjs';
-import { serverErrorOf } from '../sign-in/server-error';
+import { serverErrorOf } from './api-error';
 
 /** A screen's data while it loads, once it arrived, or why it did not. */
 export type LoadState<T> =

@@ -1,5 +1,5 @@
 import type { Chart, ChartType, Plugin } from 'chart.js';
-import type { TimeRange } from './time-range';
+import type { TimeRange } from '../core/time-range';
 
 /** Options of the drag-to-zoom plugin (`options.plugins.cwDragZoom`). */
 export interface DragZoomOptions {

@@ -3,7 +3,7 @@ import type { ChartOptions } from 'chart.js';
 import { formatInstant } from '../core/date-time';
 import type { TemperatureUnit } from '../core/temperature-unit';
 import { timeTickLabel } from './time-axis';
-import type { TimeRange } from './time-range';
+import type { TimeRange } from '../core/time-range';
 
 /** Band colours for alert spans: translucent so the lines stay readable. */
 export const SPAN_COLORS = { warning: 'rgba(224, 138, 30, 0.18)', critical: 'rgba(206, 52, 52, 0.22)' };

@@ -3,7 +3,7 @@ import { Observable, catchError, map, of, startWith } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api, ReadingHistory } from '../core/api';
 import { ApiProblem, apiProblem } from '../core/api-error';
-import type { TimeRange } from './time-range';
+import type { TimeRange } from '../core/time-range';
 
 /** Loading, failed, or loaded. */
 export type Load<T> =

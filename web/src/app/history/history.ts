@@ -26,7 +26,7 @@ import { DateTimePipe } from '../core/date-time-pipe';
 import { flagText } from '../core/flag-text';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
-import { describeSeries } from '../live/describe-series';
+import { describeSeries } from '../core/describe-series';
 import { alertSpansPlugin } from './alert-spans-plugin';
 import { dragZoomPlugin } from './drag-zoom-plugin';
 import { historyAlerts, historyReadings, resolutionText } from './history-feeds';
@@ -40,7 +40,7 @@ import {
   presetRange,
   rangeFromQuery,
   widen,
-} from './time-range';
+} from '../core/time-range';
 import {
   HISTORY_SERIES,
   HistorySeries,

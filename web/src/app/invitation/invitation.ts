@@ -10,13 +10,8 @@ import { Router, RouterLink } from '@angular/router';
 import type { InvitationPreview } from '@cellwarden/shared';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import { Auth } from '../core/auth';
-import {
-  PASSWORD_MAX_BYTES,
-  PASSWORD_MIN,
-  passwordPair,
-  passwordsMatch,
-} from '../password-reset/password-rules';
-import { serverErrorOf, showServerError } from '../sign-in/server-error';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../core/password-rules';
+import { serverErrorOf, showServerError } from '../core/api-error';
 import { InvitationApi } from './invitation-api';
 import { roleLabel } from '../core/role-label';
 

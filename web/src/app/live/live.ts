@@ -22,7 +22,7 @@ import { TemperaturePipe } from '../core/temperature-pipe';
 import { BankMonitors } from './bank-monitors/bank-monitors';
 import { ChargeColumn } from './charge-column/charge-column';
 import { isColdCharging } from './cold-charge';
-import { describeSeries } from './describe-series';
+import { describeSeries } from '../core/describe-series';
 import { FlagList } from './flag-list/flag-list';
 import { liveChartPoints, liveStates, systemOrMissing, systemSettings } from './live-feeds';
 import { leadMonitorId, type ActiveFlag } from './live-state';

@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { serverErrorOf, showServerError } from '../sign-in/server-error';
+import { serverErrorOf, showServerError } from '../core/api-error';
 import { ResetApi } from './reset-api';
 
 /** The same words whatever the address, so the form does not reveal who has an account. */

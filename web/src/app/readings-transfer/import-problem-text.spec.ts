@@ -1,20 +1,4 @@
-import { HttpErrorResponse } from '@angular/common/http';
-import { importProblemText, transferProblem } from './transfer-problem';
-
-describe('transferProblem', () => {
-  it('reads the server’s error out of a Blob body', async () => {
-    const body = new Blob([
-      JSON.stringify({ error: { code: 'invalid_input', message: 'from must be before to', field: 'from' } }),
-    ]);
-    const problem = await transferProblem(new HttpErrorResponse({ error: body, status: 400, url: '/x' }));
-    expect(problem).toEqual({
-      status: 400,
-      code: 'invalid_input',
-      message: 'from must be before to',
-      field: 'from',
-    });
-  });
-});
+import { importProblemText } from './import-problem-text';
 
 describe('importProblemText', () => {
   it('names the line and the column of a refused row', () =>

@@ -8,8 +8,8 @@ import { RouterLink } from '@angular/router';
 import type { Grant } from '@cellwarden/shared';
 import { Auth } from '../core/auth';
 import { AccessApi } from '../access/access-api';
-import { grantState } from '../access/grant-state';
-import { LoadState, loadedOr, toLoadState } from '../access/load-state';
+import { grantState } from '../core/grant-state';
+import { LoadState, loadedOr, toLoadState } from '../core/load-state';
 
 /** Route shared-with-me: the systems others let me (or my company) see, and until when. */
 @Component({

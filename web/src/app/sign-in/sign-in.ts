@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { Router, RouterLink } from '@angular/router';
 import { Auth } from '../core/auth';
-import { serverErrorOf, showServerError } from './server-error';
+import { serverErrorOf, showServerError } from '../core/api-error';
 
 /** The sign-in screen; after signing in it goes back to `returnUrl` (a local path) or the systems list. */
 @Component({

@@ -10,10 +10,10 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { COMPANY_ROLES, type CompanyMember, type Invitation, type Role } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
-import { LoadState, toLoadState } from '../access/load-state';
+import { LoadState, toLoadState } from '../core/load-state';
 import { Auth } from '../core/auth';
 import { roleLabel, roleReach } from '../core/role-label';
-import { serverErrorOf, showServerError } from '../sign-in/server-error';
+import { serverErrorOf, showServerError } from '../core/api-error';
 import { TeamApi } from './team-api';
 
 /** Admin screen: the company's members and invitations, the invite form, removal and withdrawal. */

@@ -7,7 +7,7 @@ import { MatTableModule } from '@angular/material/table';
 import type { AuditEntry } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
 import { AccessApi } from '../access-api';
-import { LoadState, loadedOr, toLoadState } from '../load-state';
+import { LoadState, loadedOr, toLoadState } from '../../core/load-state';
 import { auditActionLabel } from './audit-action-label';
 
 /** The system's audit trail as a paginated table (the contract sends all entries; pages are cut here). */

@@ -11,12 +11,12 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import type { DeviceCredentials, DeviceListing } from '@cellwarden/shared';
 import { combineLatest, filter, switchMap } from 'rxjs';
-import { serverErrorOf, showServerError } from '../../sign-in/server-error';
+import { serverErrorOf, showServerError } from '../../core/api-error';
 import { AccessApi } from '../access-api';
 import { confirmAction } from '../confirm-dialog/confirm-dialog';
 import { DeviceCredentialsDialog } from '../device-credentials/device-credentials';
-import { DEVICE_ID_PATTERN } from '../device-id';
-import { LoadState, loadError, toLoadState } from '../load-state';
+import { DEVICE_ID_PATTERN } from '../../core/device-id';
+import { LoadState, loadError, toLoadState } from '../../core/load-state';
 
 /** The monitors that publish for a system: list, add (secret shown once), rotate, revoke. */
 @Component({

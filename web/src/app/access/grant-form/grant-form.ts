@@ -8,9 +8,9 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { Grant, GrantAccess, GrantRequest } from '@cellwarden/shared';
 import { catchError, of } from 'rxjs';
-import { serverErrorOf, showServerError } from '../../sign-in/server-error';
+import { serverErrorOf, showServerError } from '../../core/api-error';
 import { AccessApi } from '../access-api';
-import { EXPIRY_QUICK_PICKS, expiryInDays, futureInstant } from '../grant-expiry';
+import { EXPIRY_QUICK_PICKS, expiryInDays, futureInstant } from '../../core/grant-expiry';
 
 type GranteeKind = 'company' | 'person';
 

@@ -8,12 +8,12 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import type { Grant } from '@cellwarden/shared';
 import { combineLatest, filter, switchMap } from 'rxjs';
-import { serverErrorOf } from '../../sign-in/server-error';
+import { serverErrorOf } from '../../core/api-error';
 import { AccessApi } from '../access-api';
 import { confirmAction } from '../confirm-dialog/confirm-dialog';
 import { GrantForm } from '../grant-form/grant-form';
-import { grantState, granteeName } from '../grant-state';
-import { LoadState, loadedOr, toLoadState } from '../load-state';
+import { grantState, granteeName } from '../../core/grant-state';
+import { LoadState, loadedOr, toLoadState } from '../../core/load-state';
 
 /** The owner's view of who may see a system: the grants table, revoke, and the grant form. */
 @Component({

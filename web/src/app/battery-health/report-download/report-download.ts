@@ -5,8 +5,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
-import { saveBlob } from '../../installer/commissioning/save-blob';
-import { transferProblem } from '../../readings-transfer/transfer-problem';
+import { saveBlob } from '../../core/blob-files';
+import { transferProblem } from '../../core/api-error';
 import { BatteryHealthApi, type HealthReportFormat } from '../battery-health-api';
 import { dayInputValue, reportPeriod } from './report-period';
 

@@ -17,7 +17,7 @@ import {
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { TimeRange, fromLocalInput, rangeProblem, toLocalInput } from '../time-range';
+import { TimeRange, fromLocalInput, rangeProblem, toLocalInput } from '../../core/time-range';
 
 /** The range of a from/to pair, checked by `rangeProblem`. */
 function rangeValidator(group: AbstractControl): ValidationErrors | null {

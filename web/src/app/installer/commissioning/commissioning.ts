@@ -18,13 +18,13 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
 import type { CommissioningCheck } from '@cellwarden/shared';
 import { Subscription, combineLatest, switchMap } from 'rxjs';
-import { LoadState, toLoadState } from '../../access/load-state';
-import { serverErrorOf } from '../../sign-in/server-error';
+import { LoadState, toLoadState } from '../../core/load-state';
+import { serverErrorOf } from '../../core/api-error';
 import { InstallerApi } from '../installer-api';
 import { Uploads } from '../uploads/uploads';
 import { CheckForm } from './check-form/check-form';
 import { CheckResult } from './check-result/check-result';
-import { saveBlob } from './save-blob';
+import { saveBlob } from '../../core/blob-files';
 import { pollCheck } from './poll-check';
 
 /** Route systems/:id/commissioning: start a check, follow it, past checks, the record, and uploads. */

@@ -13,8 +13,8 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSelectModule } from '@angular/material/select';
 import type { UploadListing } from '@cellwarden/shared';
 import { combineLatest, switchMap } from 'rxjs';
-import { LoadState, toLoadState } from '../../access/load-state';
-import { serverErrorOf } from '../../sign-in/server-error';
+import { LoadState, toLoadState } from '../../core/load-state';
+import { serverErrorOf } from '../../core/api-error';
 import { InstallerApi } from '../installer-api';
 import { UPLOAD_TYPES, formatBytes, uploadProblem } from './upload-rules';
 

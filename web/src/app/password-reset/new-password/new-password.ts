@@ -4,8 +4,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { serverErrorOf, showServerError } from '../../sign-in/server-error';
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../password-rules';
+import { serverErrorOf, showServerError } from '../../core/api-error';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../../core/password-rules';
 import { ResetApi } from '../reset-api';
 
 /** Sets a new password with the token from the reset e-mail (route /password-reset/:token). */

@@ -23,11 +23,11 @@ import {
   fromLocalInput,
   rangeProblem,
   toLocalInput,
-} from '../../history/time-range';
-import { saveBlob } from '../../installer/commissioning/save-blob';
+} from '../../core/time-range';
+import { saveBlob } from '../../core/blob-files';
 import { formatByteCount } from '../byte-count';
 import { ReadingsTransferApi } from '../readings-transfer-api';
-import { transferProblem } from '../transfer-problem';
+import { transferProblem } from '../../core/api-error';
 
 const PRESETS: RangePreset[] = ['1h', '24h', '7d', '30d'];
 

@@ -10,7 +10,9 @@ import { TemperaturePipe } from '../../core/temperature-pipe';
 import { formatByteCount } from '../byte-count';
 import { CsvPreview, previewReadingsCsv } from '../csv-preview';
 import { ReadingsImportResult, ReadingsTransferApi } from '../readings-transfer-api';
-import { blobText, importProblemText, transferProblem } from '../transfer-problem';
+import { transferProblem } from '../../core/api-error';
+import { blobText } from '../../core/blob-files';
+import { importProblemText } from '../import-problem-text';
 
 /** Largest file the server takes (16 MiB, server/src/telemetry/readings-csv-reader.ts). */
 export const IMPORT_LIMIT_BYTES = 16 * 1024 * 1024;

@@ -13,7 +13,7 @@ import {
   CommissioningCheckRequest,
 } from '@cellwarden/shared';
 import { catchError, map, of, switchMap } from 'rxjs';
-import { serverErrorOf, showServerError } from '../../../sign-in/server-error';
+import { serverErrorOf, showServerError } from '../../../core/api-error';
 import { InstallerApi } from '../../installer-api';
 
 /** The "start a check" form (CommissioningCheckRequest), offering the system's charge sources. */

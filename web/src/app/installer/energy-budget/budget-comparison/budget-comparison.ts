@@ -19,9 +19,9 @@ import type { EnergyBudgetComparison, EnergyBudgetInput, SavedEnergyBudget } fro
 import type { ChartConfiguration } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 import { combineLatest, of, switchMap } from 'rxjs';
-import { LoadState, loadedOr, toLoadState } from '../../../access/load-state';
+import { LoadState, loadedOr, toLoadState } from '../../../core/load-state';
 import { Api } from '../../../core/api';
-import { serverErrorOf } from '../../../sign-in/server-error';
+import { serverErrorOf } from '../../../core/api-error';
 import { EnergyBudgetsApi } from '../energy-budgets-api';
 import { comparedDays, describeBudgetGap, formatDay } from './budget-gap';
 import { toComparisonChart } from './to-comparison-chart';
