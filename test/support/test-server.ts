@@ -1,4 +1,5 @@
 import { mkdtempSync, rmSync } from 'node:fs';
+import type { Sequelize } from 'sequelize';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { loadConfig } from '../../server/src/config';
@@ -10,10 +11,18 @@ import { createTestDatabase } from './test-database';
 import { TEST_JWT_SECRET } from './test-secret';
 
 /** A real Cellwarden node on free ports against its own database, with the demo scenario loaded. */
-export async function startTestServer(options: { webDist?: string; env?: Record<string, string> } = {}) {
+export async function startTestServer(
+  options: {
+    webDist?: string;
+    env?: Record<string, string>;
+    /** Stores what the node should find already there when it starts, as after a restart. */
+    beforeStart?: (database: Sequelize) => Promise<void>;
+  } = {},
+) {
   const database = await createTestDatabase();
   const seeding = connectDatabase(database.url);
   await seedDemoScenario(seeding);
+  await options.beforeStart?.(seeding);
   const logger = createMemoryLogger();
   const uploadDir = mkdtempSync(join(tmpdir(), 'cw-uploads-'));
   const config = loadConfig({

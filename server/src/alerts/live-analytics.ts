@@ -138,6 +138,27 @@ export function createLiveAnalytics(deps: {
     }
   }
 
+  /**
+   * A system whose monitors fell quiet before this process started sends nothing that would give it a runtime,
+   * so the first sweep adopts every system whose newest reading arrived more than a minute ago, from that
+   * reading and its arrival time: its silence is then judged like any other's. Systems still reporting get
+   * their runtime from their next reading.
+   */
+  let adoptedQuiet = false;
+  async function adoptQuietSystems(): Promise<void> {
+    const quiet = await deps.readings.quietSystems(new Date(deps.now() - 60_000));
+    for (const { systemId, receivedAt, reading } of quiet) {
+      if (runtimes.get(systemId)?.state) continue;
+      const runtime = await runtimeFor(systemId);
+      if (!runtime || runtime.state) continue;
+      const result = deriveSystemState(undefined, reading, runtime.settings);
+      runtime.state = result.state;
+      runtime.derived = result.derived;
+      runtime.lastReceivedAt = receivedAt;
+      runtime.lastMeasuredAt = reading.measuredAt;
+    }
+  }
+
   return {
     /** Flushes pending replays at once (shutdown and tests). */
     async replayNow(): Promise<void> {
@@ -189,6 +210,10 @@ export function createLiveAnalytics(deps: {
 
     /** Device silence has no reading to trigger it: checked on a timer, on the device's clock. */
     async sweepSilence(): Promise<void> {
+      if (!adoptedQuiet) {
+        adoptedQuiet = true;
+        await adoptQuietSystems();
+      }
       const now = deps.now();
       for (const [systemId, runtime] of runtimes) {
         if (!runtime.state || runtime.lastReceivedAt === undefined || runtime.lastMeasuredAt === undefined)

@@ -117,6 +117,29 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
       );
     },
 
+    /**
+     * Each system's newest reading when it arrived before `before`: the systems whose monitors have gone quiet,
+     * for the silence check to adopt after a restart.
+     */
+    async quietSystems(
+      before: Date,
+    ): Promise<{ systemId: string; receivedAt: number; reading: BatteryReading }[]> {
+      const rows = await sequelize.query<{ systemId: string; receivedAt: number } & BatteryReading>(
+        `SELECT s.id AS "systemId", (extract(epoch FROM r.received_at) * 1000)::float8 AS "receivedAt",
+           (extract(epoch FROM r.measured_at) * 1000)::float8 AS "measuredAt", r.voltage, r.current, r.temperature,
+           r.state_of_charge AS "stateOfCharge"
+         FROM systems s
+         JOIN LATERAL (SELECT * FROM readings WHERE system_id = s.id ORDER BY measured_at DESC LIMIT 1) r ON true
+         WHERE r.received_at < :before`,
+        { replacements: { before }, type: QueryTypes.SELECT },
+      );
+      return rows.map(({ systemId, receivedAt, stateOfCharge, ...reading }) => ({
+        systemId,
+        receivedAt,
+        reading: stateOfCharge === null ? reading : { ...reading, stateOfCharge },
+      }));
+    },
+
     /** The monitor a system's headline and analytics follow (see lead-monitor.ts); null when it has none. */
     async leadMonitor(systemId: string): Promise<string | null> {
       const [row] = await sequelize.query<{ id: string | null }>(
