@@ -76,6 +76,12 @@ it('gives the installer company a fleet in varied states, one silent for hours a
     { id: `${DEMO_FLEET.idPrefix}-${DEMO_FLEET.size + 1}` },
   );
   expect(now - silent[0].last).toBeGreaterThan(4 * 3600_000);
+  // Its readings arrived when they were measured, so a node started later finds it quiet for hours.
+  const [{ late }] = await rows<{ late: string }>(
+    `SELECT count(*) AS late FROM readings WHERE device_id = :id AND received_at <> measured_at`,
+    { id: `${DEMO_FLEET.idPrefix}-${DEMO_FLEET.size + 1}` },
+  );
+  expect(Number(late)).toBe(0);
   const checks = await rows<{ status: string; reasons: string[] }>(
     `SELECT status, result->'reasons' AS reasons FROM commissioning_checks`,
   );
