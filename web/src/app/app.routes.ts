@@ -69,6 +69,12 @@ export const routes: Routes = [
     loadComponent: () => import('./installer/commissioning/commissioning').then((m) => m.Commissioning),
   },
   {
+    path: 'systems/:id/install',
+    title: 'Install register · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./install-register/install-register').then((m) => m.InstallRegister),
+  },
+  {
     path: 'shared-with-me',
     title: 'Shared with me · Cellwarden',
     canActivate: [authGuard],

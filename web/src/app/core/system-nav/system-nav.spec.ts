@@ -29,7 +29,7 @@ describe('SystemNav', () => {
     return fixture.nativeElement as HTMLElement;
   }
 
-  it('links to the pages every viewer has, the readings CSV included, escaping its id', async () => {
+  it('links to the pages every viewer has, the readings CSV and install register included, escaping its id', async () => {
     const links = Array.from((await render('live')).querySelectorAll('nav a'), (a) => a.getAttribute('href'));
     expect(links).toEqual([
       '/systems/van%201',
@@ -38,6 +38,7 @@ describe('SystemNav', () => {
       '/systems/van%201/battery-health',
       '/systems/van%201/settings',
       '/systems/van%201/readings-transfer',
+      '/systems/van%201/install',
     ]);
   });
 

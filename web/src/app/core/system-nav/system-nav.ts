@@ -14,7 +14,8 @@ export type SystemSection =
   | 'readings-transfer'
   | 'devices'
   | 'access'
-  | 'commissioning';
+  | 'commissioning'
+  | 'install';
 
 /** Links between one system's live, history, alerts and settings pages, with a way back to the list. */
 @Component({
@@ -154,6 +155,13 @@ export class SystemNav {
       icon: 'fact_check',
       path: (id: string) => ['/systems', id, 'commissioning'],
       roles: ['installer', 'admin', 'owner'] as Role[],
+    },
+    // Everyone who may view the system reads its register; changing it is the server's decision.
+    {
+      section: 'install',
+      label: 'Register',
+      icon: 'cable',
+      path: (id: string) => ['/systems', id, 'install'],
     },
   ] as const;
 

@@ -1,0 +1,141 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  effect,
+  inject,
+  input,
+  output,
+  signal,
+  untracked,
+} from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import type { RegisterCircuit, RegisterComponent } from '@cellwarden/shared';
+import { apiProblem } from '../../core/api-error';
+import { TemperatureUnit, inUnit, toCelsius } from '../../core/temperature-unit';
+import {
+  AWG_CHOICES,
+  circuitForm,
+  controlPathOf,
+  fillCircuitForm,
+  readCircuitForm,
+} from '../circuit-form-model';
+import { InstallRegisterApi } from '../install-register-api';
+
+/** Adds a circuit to the register, or edits the one given; the server answers with its verdict. */
+@Component({
+  selector: 'cw-circuit-editor',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatCheckboxModule,
+    MatButtonModule,
+  ],
+  templateUrl: './circuit-editor.html',
+  styleUrl: '../register-form.scss',
+})
+export class CircuitEditor {
+  private readonly api = inject(InstallRegisterApi);
+
+  /** The system the register belongs to. */
+  readonly systemId = input.required<string>();
+  /** The components a circuit may feed. */
+  readonly components = input.required<readonly RegisterComponent[]>();
+  /** The person's temperature unit, for the ambient. */
+  readonly unit = input.required<TemperatureUnit>();
+  /** The circuit being edited; null adds a new one. */
+  readonly editing = input<RegisterCircuit | null>(null);
+  /** Emitted with the stored circuit and its verdict. */
+  readonly saved = output<RegisterCircuit>();
+  /** Emitted when the person gives up the edit. */
+  readonly cancelled = output<void>();
+
+  protected readonly form = circuitForm();
+  protected readonly awgChoices = AWG_CHOICES;
+  protected readonly conductorKind = toSignal(this.form.controls.conductorKind.valueChanges, {
+    initialValue: this.form.controls.conductorKind.value,
+  });
+  protected readonly saving = signal(false);
+  protected readonly problem = signal<string | null>(null);
+  private shownUnit: TemperatureUnit | null = null;
+
+  constructor() {
+    effect(() => {
+      const editing = this.editing();
+      untracked(() => {
+        if (editing) fillCircuitForm(this.form, editing, this.unit());
+        else this.form.reset();
+        this.shownUnit = this.unit();
+      });
+    });
+    effect(() => this.convertAmbient(this.unit()));
+  }
+
+  protected save(): void {
+    this.form.markAllAsTouched();
+    if (this.form.invalid || this.saving()) return;
+    this.saving.set(true);
+    this.problem.set(null);
+    const wiring = readCircuitForm(this.form, this.unit());
+    this.api.saveCircuit(this.systemId(), wiring, this.editing()?.id).subscribe({
+      next: (circuit) => {
+        this.saving.set(false);
+        this.form.reset();
+        this.saved.emit(circuit);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        const problem = apiProblem(error);
+        const path = problem.field
+          ? controlPathOf(problem.field, this.form.controls.conductorKind.value)
+          : null;
+        const control = path ? this.form.get(path) : null;
+        if (control) {
+          control.setErrors({ server: problem.message });
+          control.markAsTouched();
+        }
+        this.problem.set(problem.message);
+      },
+    });
+  }
+
+  protected cancel(): void {
+    this.form.reset();
+    this.cancelled.emit();
+  }
+
+  protected errorOf(name: string, label: string): string | null {
+    const control = this.form.get(name);
+    if (!control || !control.touched || control.valid) return null;
+    if (control.hasError('server')) return control.getError('server');
+    if (control.hasError('required')) return `${label} is required.`;
+    if (control.hasError('min')) return `${label} must be at least ${control.getError('min').min}.`;
+    if (control.hasError('max')) return `${label} must be at most ${control.getError('max').max}.`;
+    if (control.hasError('maxlength')) return `${label} is too long.`;
+    return `${label} is not valid.`;
+  }
+
+  /** An insulation rating in the person's unit (the rating itself is named in °C on the cable). */
+  protected ratingLabel(celsius: number): string {
+    return this.unit() === 'F'
+      ? `${Math.round(inUnit(celsius, 'F'))} °F (rated ${celsius} °C)`
+      : `${celsius} °C`;
+  }
+
+  // The ambient field holds the unit shown; when the person switches unit, convert what is typed.
+  private convertAmbient(unit: TemperatureUnit): void {
+    if (this.shownUnit === null || unit === this.shownUnit) return;
+    const control = this.form.controls.ambient;
+    if (control.value != null)
+      control.setValue(Math.round(inUnit(toCelsius(control.value, this.shownUnit), unit) * 10) / 10);
+    this.shownUnit = unit;
+  }
+}

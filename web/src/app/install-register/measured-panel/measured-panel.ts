@@ -1,0 +1,63 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import type { CircuitDesignVsMeasured, RatingComparison } from '@cellwarden/shared';
+import { catchError, combineLatest, map, of, startWith, switchMap } from 'rxjs';
+import { apiProblem } from '../../core/api-error';
+import { InstallRegisterApi } from '../install-register-api';
+
+type Measured =
+  | { phase: 'loading' }
+  | { phase: 'error'; message: string }
+  | { phase: 'ready'; circuits: CircuitDesignVsMeasured[] };
+
+const RATING_NAMES: Record<RatingComparison['rating'], string> = {
+  fuse: 'Fuse or breaker',
+  conductor: 'Conductor (derated)',
+  'bms-continuous': 'BMS continuous',
+  'bms-peak': 'BMS peak',
+};
+
+/** What the monitor measured on each circuit it sees, against the circuit's fuse, conductor and the BMS. */
+@Component({
+  selector: 'cw-measured-panel',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [DecimalPipe, MatButtonToggleModule, MatIconModule, MatProgressSpinnerModule],
+  templateUrl: './measured-panel.html',
+  styleUrl: './measured-panel.scss',
+})
+export class MeasuredPanel {
+  private readonly api = inject(InstallRegisterApi);
+
+  /** The system whose circuits are compared. */
+  readonly systemId = input.required<string>();
+  /** Changes when the register changed, so the comparison is asked again. */
+  readonly revision = input(0);
+
+  protected readonly days = signal(7);
+  protected readonly measured = toSignal(
+    combineLatest([toObservable(this.systemId), toObservable(this.days), toObservable(this.revision)]).pipe(
+      switchMap(([id, days]) =>
+        this.api.measured(id, days).pipe(
+          map((circuits): Measured => ({ phase: 'ready', circuits })),
+          catchError((error: unknown) =>
+            of<Measured>({ phase: 'error', message: apiProblem(error).message }),
+          ),
+          startWith<Measured>({ phase: 'loading' }),
+        ),
+      ),
+    ),
+    { initialValue: { phase: 'loading' } as Measured },
+  );
+
+  protected ratingName(rating: RatingComparison['rating']): string {
+    return RATING_NAMES[rating];
+  }
+
+  protected setDays(days: number): void {
+    this.days.set(days);
+  }
+}
