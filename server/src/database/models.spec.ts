@@ -1,0 +1,70 @@
+import { Op, Sequelize } from 'sequelize';
+import { initModels } from './models';
+
+// No connection is opened: Sequelize connects on the first query, and these checks make none.
+const offline = () => new Sequelize('postgres://nobody@127.0.0.1:1/none', { logging: false });
+
+describe('initModels', () => {
+  it('binds one set of models per connection, and the same set when asked again', () => {
+    const primary = offline();
+    const other = offline();
+    const models = initModels(primary);
+    expect(initModels(primary)).toBe(models);
+    const others = initModels(other);
+    expect(others.User).not.toBe(models.User);
+    expect(models.User.sequelize).toBe(primary);
+    expect(others.User.sequelize).toBe(other);
+  });
+
+  it('names the tables the migrations create, with snake_case columns', () => {
+    const {
+      User,
+      Company,
+      SignInSession,
+      RefreshToken,
+      Invitation,
+      PasswordReset,
+      AuditEntry,
+      UserPreference,
+    } = initModels(offline());
+    expect(
+      [User, Company, SignInSession, RefreshToken, Invitation, PasswordReset, AuditEntry, UserPreference].map(
+        (model) => model.getTableName(),
+      ),
+    ).toEqual([
+      'users',
+      'companies',
+      'sign_in_sessions',
+      'refresh_tokens',
+      'invitations',
+      'password_resets',
+      'audit_entries',
+      'user_preferences',
+    ]);
+    expect(User.getAttributes().displayName.field).toBe('display_name');
+    expect(RefreshToken.getAttributes().familyId.field).toBe('family_id');
+    expect(SignInSession.getAttributes().userId.field).toBe('user_id');
+  });
+
+  it('keeps only the timestamps each table has', () => {
+    const { User, RefreshToken, AuditEntry, UserPreference } = initModels(offline());
+    expect(Object.keys(User.getAttributes())).toEqual(expect.arrayContaining(['createdAt', 'updatedAt']));
+    expect(Object.keys(RefreshToken.getAttributes())).not.toContain('updatedAt');
+    expect(Object.keys(AuditEntry.getAttributes())).not.toContain('createdAt');
+    expect(Object.keys(UserPreference.getAttributes())).not.toContain('createdAt');
+  });
+
+  it('gives revocable and expiring rows an active scope on the database clock', () => {
+    const { RefreshToken, Invitation, PasswordReset, SignInSession } = initModels(offline());
+    const where = (model: { options: { scopes?: Record<string, unknown> } }) =>
+      (model.options.scopes?.active as { where: Record<string | symbol, unknown> }).where;
+    expect(where(RefreshToken).revokedAt).toBeNull();
+    expect(where(Invitation).acceptedAt).toBeNull();
+    expect(where(PasswordReset).usedAt).toBeNull();
+    expect(where(SignInSession).endedAt).toBeNull();
+    for (const model of [RefreshToken, Invitation, PasswordReset]) {
+      const expiry = where(model).expiresAt as Record<symbol, { fn: string }>;
+      expect(expiry[Op.gt].fn).toBe('now');
+    }
+  });
+});

@@ -1,0 +1,46 @@
+import { QueryTypes } from 'sequelize';
+import { connectDatabase } from '../../server/src/database/connect-database';
+import { initModels } from '../../server/src/database/models';
+import { createTestDatabase } from '../support/test-database';
+
+// The schema comes only from the migrations; the models describe it. This holds the two together: every
+// model attribute is a column of its table, and a NOT NULL column without a default is one the model declares.
+describe('models against the migrated schema', () => {
+  let database: Awaited<ReturnType<typeof createTestDatabase>>;
+  let sequelize: ReturnType<typeof connectDatabase>;
+  beforeAll(async () => {
+    database = await createTestDatabase();
+    sequelize = connectDatabase(database.url);
+  });
+  afterAll(async () => {
+    await sequelize.close();
+    await database.drop();
+  });
+
+  it('match their tables column for column', async () => {
+    const columns = await sequelize.query<{
+      table: string;
+      column: string;
+      nullable: string;
+      hasDefault: boolean;
+    }>(
+      `SELECT table_name AS "table", column_name AS "column", is_nullable AS nullable,
+         column_default IS NOT NULL AS "hasDefault"
+       FROM information_schema.columns WHERE table_schema = 'public'`,
+      { type: QueryTypes.SELECT },
+    );
+    const models = Object.values(initModels(sequelize));
+    expect(models.length).toBeGreaterThanOrEqual(8);
+    for (const model of models) {
+      const table = String(model.getTableName());
+      const inTable = columns.filter((c) => c.table === table);
+      expect({ table, found: inTable.length > 0 }).toEqual({ table, found: true });
+      const fields = Object.values(model.getAttributes()).map((a) => a.field ?? '');
+      const missing = fields.filter((field) => !inTable.some((c) => c.column === field));
+      expect({ table, missing }).toEqual({ table, missing: [] });
+      const required = inTable.filter((c) => c.nullable === 'NO' && !c.hasDefault).map((c) => c.column);
+      const undeclared = required.filter((column) => !fields.includes(column));
+      expect({ table, undeclared }).toEqual({ table, undeclared: [] });
+    }
+  });
+});
