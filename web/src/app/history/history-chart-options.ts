@@ -1,12 +1,10 @@
 import type { AlertEvent } from '@cellwarden/shared';
 import type { ChartOptions } from 'chart.js';
+import { ChartPalette, FALLBACK_PALETTE } from '../core/chart-palette';
 import { formatInstant } from '../core/date-time';
 import type { TemperatureUnit } from '../core/temperature-unit';
 import { timeTickLabel } from './time-axis';
 import type { TimeRange } from '../core/time-range';
-
-/** Band colours for alert spans: translucent so the lines stay readable. */
-export const SPAN_COLORS = { warning: 'rgba(224, 138, 30, 0.18)', critical: 'rgba(206, 52, 52, 0.22)' };
 
 /**
  * Chart options for a history range: fixed time axis labelled in the viewer's locale, one y axis per quantity
@@ -18,6 +16,7 @@ export function historyChartOptions(
   unit: TemperatureUnit,
   locale: string,
   onSelect: (range: TimeRange) => void,
+  palette: ChartPalette = FALLBACK_PALETTE,
 ): ChartOptions<'line'> {
   const span = range.to - range.from;
   const side = { type: 'linear' as const, display: 'auto' as const, grid: { drawOnChartArea: false } };
@@ -39,9 +38,10 @@ export function historyChartOptions(
       cwAlertSpans: {
         spans: alerts.map((a) => ({ startedAt: a.startedAt, endedAt: a.endedAt, severity: a.severity })),
         rangeEnd: range.to,
-        colors: SPAN_COLORS,
+        // Translucent, from the status colours, so the lines stay readable over an alert's span.
+        colors: { warning: palette.warningBand, critical: palette.criticalBand },
       },
-      cwDragZoom: { onSelect, color: 'rgba(91, 110, 225, 0.2)' },
+      cwDragZoom: { onSelect, color: palette.selectionBand },
     },
     scales: {
       x: {

@@ -21,6 +21,7 @@ import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api } from '../core/api';
+import { ChartColours } from '../core/chart-palette';
 import { loadFailureText } from '../core/api-error';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { flagText } from '../core/flag-text';
@@ -41,13 +42,7 @@ import {
   rangeFromQuery,
   widen,
 } from '../core/time-range';
-import {
-  HISTORY_SERIES,
-  HistorySeries,
-  SERIES_COLORS,
-  seriesLabel,
-  toHistorySeries,
-} from './to-history-series';
+import { HISTORY_SERIES, HistorySeries, seriesLabel, toHistorySeries } from './to-history-series';
 
 /** One system's stored readings over a chosen range, with its alerts marked on the time axis. */
 @Component({
@@ -74,6 +69,7 @@ export class History {
   private readonly router = inject(Router);
   private readonly preferences = inject(Preferences);
   private readonly locale = inject(LOCALE_ID);
+  private readonly colours = inject(ChartColours);
 
   /** The system id from the route. */
   readonly id = input.required<string>();
@@ -136,12 +132,17 @@ export class History {
     HISTORY_SERIES.map((series) => ({
       series,
       label: seriesLabel(series, this.preferences.temperatureUnit()),
-      color: SERIES_COLORS[series],
+      color: this.colours.palette()[series],
       shown: !this.hiddenSeries().has(series),
     })),
   );
   protected readonly chartData = computed(() =>
-    toHistorySeries(this.points(), this.preferences.temperatureUnit(), this.hiddenSeries()),
+    toHistorySeries(
+      this.points(),
+      this.preferences.temperatureUnit(),
+      this.hiddenSeries(),
+      this.colours.palette(),
+    ),
   );
   protected readonly chartOptions = computed<ChartOptions<'line'>>(() =>
     historyChartOptions(
@@ -150,6 +151,7 @@ export class History {
       this.preferences.temperatureUnit(),
       this.locale,
       (range) => this.showRange(range),
+      this.colours.palette(),
     ),
   );
   protected readonly shownNames = computed(() =>

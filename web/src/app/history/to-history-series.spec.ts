@@ -1,3 +1,4 @@
+import { FALLBACK_PALETTE } from '../core/chart-palette';
 import { GAP_INTERVALS, gapThreshold, toHistorySeries } from './to-history-series';
 
 const points = [
@@ -61,4 +62,15 @@ describe('gapThreshold', () => {
     ));
 
   it('cannot tell from a single point', () => expect(gapThreshold([{ measuredAt: 5 }])).toBeNull());
+
+  it('draws each series in the palette it is given, so lines follow the light or dark theme', () => {
+    const palette = { ...FALLBACK_PALETTE, voltage: 'rgb(1, 2, 3)', temperature: 'rgb(4, 5, 6)' };
+    const data = toHistorySeries(points, 'C', new Set(), palette);
+    expect(data.datasets.map((d) => d.borderColor)).toEqual([
+      'rgb(1, 2, 3)',
+      FALLBACK_PALETTE.current,
+      FALLBACK_PALETTE.soc,
+      'rgb(4, 5, 6)',
+    ]);
+  });
 });

@@ -1,5 +1,6 @@
 import type { HistoryPoint } from '@cellwarden/shared';
 import type { ChartData } from 'chart.js';
+import { ChartPalette, FALLBACK_PALETTE } from '../core/chart-palette';
 import { TemperatureUnit, celsiusToFahrenheit } from '../core/temperature-unit';
 
 type XY = { x: number; y: number };
@@ -9,14 +10,6 @@ export type HistorySeries = 'voltage' | 'current' | 'soc' | 'temperature';
 
 /** Every series, in the order the chart and its legend list them. */
 export const HISTORY_SERIES: readonly HistorySeries[] = ['voltage', 'current', 'soc', 'temperature'];
-
-/** Series colours, picked for contrast on both themes. */
-export const SERIES_COLORS: Record<HistorySeries, string> = {
-  voltage: '#1f9e8a',
-  current: '#e08a1e',
-  soc: '#5b6ee1',
-  temperature: '#b5487a',
-};
 
 /** What each series is called in the legend (temperature in the chosen unit). */
 export function seriesLabel(series: HistorySeries, unit: TemperatureUnit): string {
@@ -60,6 +53,7 @@ export function toHistorySeries(
   points: readonly HistoryPoint[],
   unit: TemperatureUnit,
   hidden: ReadonlySet<HistorySeries> = new Set(),
+  palette: ChartPalette = FALLBACK_PALETTE,
 ): ChartData<'line', XY[]> {
   const sorted = [...points].sort((a, b) => a.measuredAt - b.measuredAt);
   const threshold = gapThreshold(sorted);
@@ -76,8 +70,8 @@ export function toHistorySeries(
       data: values[series],
       yAxisID: series,
       hidden: hidden.has(series),
-      borderColor: SERIES_COLORS[series],
-      backgroundColor: SERIES_COLORS[series],
+      borderColor: palette[series],
+      backgroundColor: palette[series],
       borderWidth: 1.5,
       pointRadius: 0,
       // chart.js breaks the line where neighbouring points are further apart than this (x axis units, ms).

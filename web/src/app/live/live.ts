@@ -9,6 +9,7 @@ import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { Api } from '../core/api';
+import { ChartColours } from '../core/chart-palette';
 import type { ApiProblem } from '../core/api-error';
 import { currentDirection } from '../core/current-direction';
 import { formatInstant, viewerTimeZone } from '../core/date-time';
@@ -57,6 +58,7 @@ export class Live {
   private readonly settingsApi = inject(SettingsApi);
   private readonly stream = inject(LiveStream);
   private readonly locale = inject(LOCALE_ID);
+  private readonly colours = inject(ChartColours);
   protected readonly now = injectNow(5_000);
 
   /** The system id from the route. */
@@ -149,7 +151,7 @@ export class Live {
   protected readonly flags = computed(() =>
     withColdCharge(this.state()?.flags ?? [], this.coldCharging(), this.reading()?.measuredAt),
   );
-  protected readonly chartData = computed(() => toChartSeries(this.points()));
+  protected readonly chartData = computed(() => toChartSeries(this.points(), this.colours.palette()));
   protected readonly chartSummary = computed(() => describeSeries(this.points(), 'in the last 3 hours'));
   protected readonly chartOptions: ChartOptions<'line'> = {
     animation: false,

@@ -1,3 +1,4 @@
+import { ChartPalette, FALLBACK_PALETTE } from '../core/chart-palette';
 import type { ChartData } from 'chart.js';
 
 /** The fields the live chart plots. */
@@ -8,7 +9,10 @@ export interface ChartPoint {
 }
 
 /** Turns readings into a new chart.js data object: voltage on the left axis, current on the right. */
-export function toChartSeries(points: readonly ChartPoint[]): ChartData<'line', { x: number; y: number }[]> {
+export function toChartSeries(
+  points: readonly ChartPoint[],
+  palette: ChartPalette = FALLBACK_PALETTE,
+): ChartData<'line', { x: number; y: number }[]> {
   const sorted = [...points].sort((a, b) => a.measuredAt - b.measuredAt);
   return {
     datasets: [
@@ -16,8 +20,8 @@ export function toChartSeries(points: readonly ChartPoint[]): ChartData<'line', 
         label: 'Voltage (V)',
         data: sorted.map((p) => ({ x: p.measuredAt, y: p.voltage })),
         yAxisID: 'voltage',
-        borderColor: '#1f9e8a',
-        backgroundColor: '#1f9e8a',
+        borderColor: palette.voltage,
+        backgroundColor: palette.voltage,
         pointRadius: 0,
         tension: 0.2,
       },
@@ -25,8 +29,8 @@ export function toChartSeries(points: readonly ChartPoint[]): ChartData<'line', 
         label: 'Current (A)',
         data: sorted.map((p) => ({ x: p.measuredAt, y: p.current })),
         yAxisID: 'current',
-        borderColor: '#e08a1e',
-        backgroundColor: '#e08a1e',
+        borderColor: palette.current,
+        backgroundColor: palette.current,
         pointRadius: 0,
         tension: 0.2,
       },
