@@ -15,6 +15,12 @@ export const routes: Routes = [
     loadComponent: () => import('./systems/systems').then((m) => m.Systems),
   },
   {
+    path: 'systems/new',
+    title: 'Set up a system · Cellwarden',
+    canActivate: [roleGuard(['installer', 'owner'])],
+    loadComponent: () => import('./onboarding/new-system/new-system').then((m) => m.NewSystem),
+  },
+  {
     path: 'systems/:id',
     title: 'Live · Cellwarden',
     canActivate: [authGuard],
@@ -73,6 +79,12 @@ export const routes: Routes = [
     title: 'Install register · Cellwarden',
     canActivate: [authGuard],
     loadComponent: () => import('./install-register/install-register').then((m) => m.InstallRegister),
+  },
+  {
+    path: 'requests',
+    title: 'Requests · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./requests/requests').then((m) => m.Requests),
   },
   {
     path: 'shared-with-me',

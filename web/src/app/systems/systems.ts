@@ -14,6 +14,7 @@ import { RouterLink } from '@angular/router';
 import type { SystemStatus } from '@cellwarden/shared';
 import { map } from 'rxjs';
 import { Api } from '../core/api';
+import { Auth } from '../core/auth';
 import { injectNow } from '../core/now';
 import { FleetRow, fleetSortValue, matchesSearch, toFleetRow } from './fleet-row';
 import { fleetLoad, statusesOf } from './fleet-feeds';
@@ -43,6 +44,9 @@ export class Systems {
   private readonly api = inject(Api);
   private readonly breakpoints = inject(BreakpointObserver);
   protected readonly now = injectNow();
+  private readonly auth = inject(Auth);
+  /** Installers and owners set up new systems from here. */
+  protected readonly canSetUp = computed(() => this.auth.hasAnyRole(['installer', 'owner']));
 
   protected readonly state = toSignal(fleetLoad(this.api), { requireSync: true });
   private readonly statuses = toSignal(statusesOf(this.api, this.state), {

@@ -9,6 +9,7 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { MailOutboxApi } from '../../mail-outbox/mail-outbox-api';
+import { RequestsNotice } from '../requests-notice';
 import { Auth } from '../auth';
 import { OfflineStore } from '../offline/offline-store';
 import { Theme } from '../theme';
@@ -42,6 +43,8 @@ export class Shell {
   protected readonly auth = inject(Auth);
   protected readonly theme = inject(Theme);
   protected readonly offline = inject(OfflineStore);
+  /** Access requests and systems set up for me, waiting for my answer (a count beside Requests). */
+  protected readonly requestsNotice = inject(RequestsNotice);
   private readonly breakpoints = inject(BreakpointObserver);
   private readonly mailOutbox = inject(MailOutboxApi);
 
