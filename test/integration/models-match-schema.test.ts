@@ -1,4 +1,4 @@
-import { QueryTypes } from 'sequelize';
+import { QueryTypes, type ModelStatic, type Model } from 'sequelize';
 import { connectDatabase } from '../../server/src/database/connect-database';
 import { initModels } from '../../server/src/database/models';
 import { createTestDatabase } from '../support/test-database';
@@ -29,7 +29,8 @@ describe('models against the migrated schema', () => {
        FROM information_schema.columns WHERE table_schema = 'public'`,
       { type: QueryTypes.SELECT },
     );
-    const models = Object.values(initModels(sequelize));
+    // A union of model classes has no common `getAttributes`; each is a ModelStatic of some Model.
+    const models = Object.values(initModels(sequelize)) as unknown as ModelStatic<Model>[];
     expect(models.length).toBeGreaterThanOrEqual(8);
     for (const model of models) {
       const table = String(model.getTableName());
