@@ -7,6 +7,7 @@ import { migrateToLatest } from '../db/migrator';
 import { seedDemoScenario } from '../db/seeders/demo-scenario';
 import { connectDatabase } from '../server/src/database/connect-database';
 import { copyCeiling, insertCeiling, productStorage, syntheticRows } from './database-ceilings';
+import { timeBatteryHealth } from './battery-health-timing';
 import { timeDashboard } from './dashboard-timing';
 import { seedHistory, timeHistory } from './history-timing';
 import { connectFleet, publishAtOneHertz, sendBacklog, type Fleet } from './monitor-fleet';
@@ -218,6 +219,17 @@ async function main() {
         against: `its SQL ${h.sqlMs.toFixed(1)} ms`,
         ratio: (h.apiMs / h.sqlMs).toFixed(2),
       });
+    console.log('battery health …');
+    rows.push(
+      ...(await timeBatteryHealth({
+        sequelize,
+        baseUrl: product.baseUrl,
+        token,
+        repeats: quick ? 5 : 15,
+        paint:
+          existsSync(join(root, 'dist', 'web', 'browser', 'index.html')) && existsSync('/usr/bin/chromium'),
+      })),
+    );
     if (existsSync(join(root, 'dist', 'web', 'browser', 'index.html')) && existsSync('/usr/bin/chromium')) {
       console.log('dashboard …');
       const d = await timeDashboard({

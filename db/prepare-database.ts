@@ -1,6 +1,9 @@
 import { writeFileSync } from 'node:fs';
 import { connectDatabase } from '../server/src/database/connect-database';
 import { migrateToLatest } from './migrator';
+import { createBatteryHealthJob } from '../server/src/battery-health/battery-health-job';
+import { createBatteryHealthRepository } from '../server/src/battery-health/battery-health-repository';
+import { seedDemoBatteryYear } from './seeders/demo-battery-year';
 import { seedDemoFleet } from './seeders/demo-fleet';
 import { seedDemoHistory } from './seeders/demo-history';
 import { seedDemoScenario } from './seeders/demo-scenario';
@@ -33,6 +36,14 @@ async function prepare() {
         log: console.log,
       });
       if (stored > 0) console.log(`Stored ${stored} demo readings of the past ${days} days.`);
+      // A year of the van's battery life before that week, through the rollups only; then the health job
+      // takes in the week, so the battery health screen is ready when the server starts.
+      if (timeline) await seedDemoBatteryYear(sequelize, { end: timeline.origin, log: console.log });
+      const health = createBatteryHealthJob({
+        repository: createBatteryHealthRepository(sequelize),
+        logger: { warn: (message: string, fields?: object) => console.warn(message, fields ?? '') },
+      });
+      await health.catchUp();
       const timelineFile = flags.includes('--timeline-file')
         ? flags[flags.indexOf('--timeline-file') + 1]
         : undefined;
