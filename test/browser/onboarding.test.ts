@@ -198,4 +198,4 @@ it('support asks for access, the owner approves in one click, and the support pe
   await supportPage.goto(`${node.baseUrl}/requests`);
   await supportPage.getByRole('cell', { name: 'Approved' }).waitFor();
   await supportContext.close();
-});
+}, 120000);

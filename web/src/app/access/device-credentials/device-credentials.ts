@@ -18,6 +18,7 @@ export class DeviceCredentialsDialog {
   protected readonly copied = signal<string | null>(null);
 
   protected readonly rows = [
+    { label: 'Broker URL', value: this.credentials.brokerUrl },
     { label: 'MQTT username', value: this.credentials.mqttUsername },
     { label: 'MQTT password', value: this.credentials.mqttPassword },
     { label: 'Topic to publish to', value: this.credentials.mqttTopic },

@@ -25,6 +25,7 @@ const CREDENTIALS: DeviceCredentials = {
   mqttPassword: 'k3y-only-once-7f2a',
   mqttTopic: 'cellwarden/v1/devices/cabin-shunt/readings',
   brokerPort: 1883,
+  brokerUrl: 'mqtt://monitors.example:1883',
 };
 
 describe('Devices', () => {
@@ -94,7 +95,8 @@ describe('Devices', () => {
     expect(text).toContain('cellwarden/v1/devices/cabin-shunt/readings');
     expect(
       await dialog.getAllHarnesses(MatButtonHarness.with({ selector: '[aria-label^="Copy "]' })),
-    ).toHaveLength(4);
+    ).toHaveLength(5);
+    expect(await dialog.getText()).toContain('mqtt://monitors.example:1883');
     await (await dialog.getHarness(MatButtonHarness.with({ text: 'I have copied it' }))).click();
     expect(await root.getAllHarnesses(MatDialogHarness)).toHaveLength(0);
     expect(fixture.nativeElement.textContent).not.toContain('k3y-only-once-7f2a');
