@@ -23,7 +23,7 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
 import { map, switchMap } from 'rxjs';
-import { AccessApi } from '../access/access-api';
+import { AccessApi } from '../core/access-api';
 import { Api } from '../core/api';
 import { AlertsApi } from '../core/alerts-api';
 import { loadFailureText } from '../core/api-error';

@@ -1,6 +1,6 @@
 import type { Grant, SystemAction } from '@cellwarden/shared';
 import { Observable, catchError, forkJoin, map, of } from 'rxjs';
-import type { AccessApi } from '../access/access-api';
+import type { AccessApi } from './access-api';
 import type { Api } from './api';
 
 /** Whether the person may change a system (settings, acknowledgements), and the view grant they hold if not. */

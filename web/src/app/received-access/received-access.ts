@@ -7,7 +7,7 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { Grant } from '@cellwarden/shared';
 import { Auth } from '../core/auth';
-import { AccessApi } from '../access/access-api';
+import { AccessApi } from '../core/access-api';
 import { grantState } from '../core/grant-state';
 import { LoadState, loadedOr, toLoadState } from '../core/load-state';
 

@@ -23,7 +23,7 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSelectModule } from '@angular/material/select';
 import type { SystemSettings } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
-import { AccessApi } from '../access/access-api';
+import { AccessApi } from '../core/access-api';
 import { Api } from '../core/api';
 import { ApiProblem, apiProblem, loadFailureText } from '../core/api-error';
 import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';

@@ -6,7 +6,7 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatTableModule } from '@angular/material/table';
 import type { AuditEntry } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
-import { AccessApi } from '../access-api';
+import { AccessApi } from '../../core/access-api';
 import { LoadState, loadedOr, toLoadState } from '../../core/load-state';
 import { auditActionLabel } from './audit-action-label';
 

@@ -12,7 +12,7 @@ import { MatTableModule } from '@angular/material/table';
 import type { DeviceCredentials, DeviceListing } from '@cellwarden/shared';
 import { combineLatest, filter, switchMap } from 'rxjs';
 import { serverErrorOf, showServerError } from '../../core/api-error';
-import { AccessApi } from '../access-api';
+import { AccessApi } from '../../core/access-api';
 import { confirmAction } from '../confirm-dialog/confirm-dialog';
 import { DeviceCredentialsDialog } from '../device-credentials/device-credentials';
 import { DEVICE_ID_PATTERN } from '../../core/device-id';

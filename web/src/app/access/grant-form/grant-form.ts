@@ -9,7 +9,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { Grant, GrantAccess, GrantRequest } from '@cellwarden/shared';
 import { catchError, of } from 'rxjs';
 import { serverErrorOf, showServerError } from '../../core/api-error';
-import { AccessApi } from '../access-api';
+import { AccessApi } from '../../core/access-api';
 import { EXPIRY_QUICK_PICKS, expiryInDays, futureInstant } from '../../core/grant-expiry';
 
 type GranteeKind = 'company' | 'person';

@@ -9,7 +9,7 @@ import { MatTableModule } from '@angular/material/table';
 import type { Grant } from '@cellwarden/shared';
 import { combineLatest, filter, switchMap } from 'rxjs';
 import { serverErrorOf } from '../../core/api-error';
-import { AccessApi } from '../access-api';
+import { AccessApi } from '../../core/access-api';
 import { confirmAction } from '../confirm-dialog/confirm-dialog';
 import { GrantForm } from '../grant-form/grant-form';
 import { grantState, granteeName } from '../../core/grant-state';
