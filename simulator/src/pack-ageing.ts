@@ -62,7 +62,7 @@ export const AGEING_PARAMETERS: Readonly<Record<Chemistry, AgeingParameters>> = 
     cycleExponent: 0.55,
     calendarFadePerRootYear: 0.03,
     calendarActivationEnergy: 50_000,
-    coldChargeFadePerCapacity: 0.01,
+    coldChargeFadePerCapacity: 0.004,
   },
   agm: leadAcid(),
   flooded: leadAcid(),

@@ -109,7 +109,9 @@ export interface DayContext {
 export function planDay(context: DayContext, rng: Rng): DayPlan {
   const { dayIndex, dayStart, climate, usage, coldDays, restTarget } = context;
   const summer = summerness(dayOfYear(dayStart), climate);
-  const weather = (rng() - 0.5) * 6;
+  // The cold-charging night and the day before it are a cold snap, so the pack is below freezing then.
+  const coldSnap = coldDays.includes(dayIndex) || coldDays.includes(dayIndex + 1);
+  const weather = coldSnap ? -4 - 3 * rng() : (rng() - 0.5) * 6;
   const clearness = 0.2 + 0.8 * rng();
   const meanTemperature = climate.meanTemperature + climate.seasonalSwing * (2 * summer - 1) + weather;
   const coldChargingAllowed = coldDays.includes(dayIndex);
@@ -132,7 +134,10 @@ export function planDay(context: DayContext, rng: Rng): DayPlan {
     // Steered toward the rest depth over the days before the night away, an equal share per day.
     const left = restDay - dayInPeriod + 1;
     const target = restTarget + (1 - restTarget) * ((left - 1) / left);
-    if (dayInPeriod < restDay) return { ...plan, targetStateOfCharge: target };
+    // The owner stays in for a cold-charging night: no night away just before it.
+    if (dayInPeriod < restDay || coldDays.includes(dayIndex + 1)) {
+      return { ...plan, targetStateOfCharge: target };
+    }
     return { ...plan, targetStateOfCharge: target, switchOffHour: 22 };
   }
   return { ...plan, targetStateOfCharge: 0.3 + 0.4 * rng() };
@@ -144,7 +149,7 @@ export function drawRestTarget(usage: UsagePattern, rng: Rng): number {
   return low + (high - low) * rng();
 }
 
-/** The days (indices from the start) of the two cold-charging nights: ten days either side of the coldest day. */
+/** Indices of the two cold-charging days, about ten days either side of the coldest, counted from the day at `start`. */
 export function coldChargingDays(start: number, days: number, climate: YearClimate): number[] {
   const found: number[] = [];
   for (let d = 0; d < days; d++) {

@@ -113,11 +113,13 @@ export function* yearOfUse(options: YearOfUseOptions): Generator<SimulatedMinute
   const usage = options.usage ?? WEEKLY_FULL_CHARGE;
   const longitude = options.longitude ?? 10;
   const start = Math.floor(options.start / MINUTE_MS) * MINUTE_MS;
-  const coldDays = options.coldChargingDays ?? coldChargingDays(start, options.days, climate);
+  const firstLocalDay = localDay(start, longitude);
+  // Day indices count local days, so the cold nights are found on the local calendar.
+  const coldDays =
+    options.coldChargingDays ?? coldChargingDays(firstLocalDay * DAY_MS, options.days, climate);
   const rng = mulberry32(options.seed);
   const drawn = drawSensorBias(rng, pack.nominalVoltage);
   const bias = { ...drawn, current: drawn.current * ZEROED_OFFSET_SHARE, ...options.sensorBias };
-  const firstLocalDay = localDay(start, longitude);
   let state = initialState(pack, newCapacityAh, airTemperatureGuess(start, climate));
   for (let i = 0; i < options.days * 1440; i++) {
     const at = start + i * MINUTE_MS;
@@ -183,7 +185,9 @@ function stepMinute(state: YearState, c: MinuteContext, options: YearOfUseOption
   const demand = charge.current - load;
   const bmsConfig = { ...BMS, blocksColdCharge: false };
   const decision = decideBms(state.bms, bmsConfig, pack, demand, STEP_SECONDS);
-  const coldLocked = pack.chemistry === 'lifepo4' && temperature < COLD_LOCK_C && !plan.coldChargingAllowed;
+  // The lock is off only for the cold night's shore charge (until 08:00), not for the sun later that day.
+  const coldNight = plan.coldChargingAllowed && c.hour < 8;
+  const coldLocked = pack.chemistry === 'lifepo4' && temperature < COLD_LOCK_C && !coldNight;
   const tripping = !state.bms.lowVoltageCut && decision.state.lowVoltageCut;
   // The minute in which the BMS trips still shows the sag that tripped it; from the next one nothing flows.
   let current = demand;
