@@ -238,7 +238,7 @@ describe('a new monitor', () => {
         reconnectPeriod: 0,
       });
     const client = await connect();
-    const closed = new Promise((resolve) => client.once('close', resolve));
+    const closed = new Promise<void>((resolve) => client.once('close', () => resolve()));
     client.publish('cellwarden/v1/devices/someone-else/readings', examplePayload('bench-shunt-3', 24), {
       qos: 1,
     });
