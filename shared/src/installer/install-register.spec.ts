@@ -121,6 +121,18 @@ describe('install register', () => {
     expect(judgeCircuit(wiring({ conductor: { mm2: 0.5 } }), dcdc, van).rule).toMatch(/183\.425\(d\)/);
   });
 
+  it('answers a circuit past the tables with a failing verdict saying why, never an exception', () => {
+    const huge: RegisterComponent = {
+      id: 'i',
+      name: 'Inverter 20 kW',
+      ratings: { kind: 'inverter', continuousW: 20000, surgeW: 40000, standbyW: 50, efficiency: 0.9 },
+    };
+    // 20000 W / (12 V × 0.9) = 1852 A, past the 1000 A the wire & fuse check accepts
+    const verdict = judgeCircuit(wiring({ componentId: 'i' }), huge, van);
+    expect(verdict).toMatchObject({ ok: false });
+    expect(verdict.summary).toMatch(/currentA/);
+  });
+
   it('builds the energy budget from the components and gives a charge source its registered rating', () => {
     const input = registerBudgetInput([battery, dcdc, inverter, heater], 12)!;
     const budget = energyBudget(input);

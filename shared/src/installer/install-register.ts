@@ -12,6 +12,7 @@ import { inverterDcCurrent } from './budget-circuits';
 import { FUSE_PLACEMENT_RULE } from './fuse-placement';
 import type { FuseRange } from './fuse-ratings';
 import type { InstallerFinding } from './installer-finding';
+import { InstallerInputError } from './installer-input-error';
 import type { SystemVoltage } from './system-voltage';
 import { checkWireAndFuse } from './wire-fuse-check';
 import { AWG_SIZES, AwgSize, awgAreaMm2 } from './wire-gauge';
@@ -88,22 +89,30 @@ export function judgeCircuit(
       'no-design-current',
       'no continuous current: enter the design current or the component’s rating',
     );
-  const result = checkWireAndFuse({
-    currentA,
-    oneWayLengthM: wiring.oneWayLengthM,
-    systemVoltage: system.nominalVoltage,
-    allowedDropPercent: wiring.allowedDropPercent,
-    insulationRatingC: wiring.insulationRatingC,
-    proposedGauge: awg,
-    proposedFuseA: wiring.protection.ratingA,
-    construction: wiring.construction,
-    rules: system.kind === 'cabin' ? 'nec' : 'marine',
-    ambientC: wiring.ambientC,
-    engineSpace: wiring.location === 'engine-space',
-    bundledConductors: wiring.bundledConductors,
-    fuseDistanceM: wiring.fuseDistanceM ?? undefined,
-    sheathed: wiring.sheathed,
-  });
+  let result: ReturnType<typeof checkWireAndFuse>;
+  try {
+    result = checkWireAndFuse({
+      currentA,
+      oneWayLengthM: wiring.oneWayLengthM,
+      systemVoltage: system.nominalVoltage,
+      allowedDropPercent: wiring.allowedDropPercent,
+      insulationRatingC: wiring.insulationRatingC,
+      proposedGauge: awg,
+      proposedFuseA: wiring.protection.ratingA,
+      construction: wiring.construction,
+      rules: system.kind === 'cabin' ? 'nec' : 'marine',
+      ambientC: wiring.ambientC,
+      engineSpace: wiring.location === 'engine-space',
+      bundledConductors: wiring.bundledConductors,
+      fuseDistanceM: wiring.fuseDistanceM ?? undefined,
+      sheathed: wiring.sheathed,
+    });
+  } catch (error) {
+    // A stored circuit the rules cannot judge (a 20 kW inverter at 12 V is past the tables) gets a verdict
+    // saying why, so one circuit never keeps the rest of the register from showing.
+    if (error instanceof InstallerInputError) return refusal(base, 'outside-the-rules', error.message);
+    throw error;
+  }
   const findings = result.verdict.findings.map((f) => ({ ...f, rule: ruleOfFinding(f.code, result.fuse) }));
   const deciding = findings.find((f) => f.severity === 'error');
   return {
