@@ -129,6 +129,9 @@ it('installer sets up a system for a customer, adds its monitor, and sees the fi
     .getByRole('link', { name: /Fjord hopper/ })
     .first()
     .waitFor();
+  // The invitation is in the new owner's own captured-mail outbox too.
+  await customer.goto(`${node.baseUrl}/mail-outbox`);
+  await customer.getByText('Your battery system “Fjord hopper” on Cellwarden').first().waitFor();
   await customerContext.close();
 }, 120000);
 
