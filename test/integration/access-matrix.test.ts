@@ -101,6 +101,27 @@ const routes: { name: string; action: Action; call: (base: string, systemId: str
     action: 'manage-grants',
     call: (b, id) => request(b).get(`/api/systems/${id}/access-requests`),
   },
+  {
+    name: 'GET install register',
+    action: 'view',
+    call: (b, id) => request(b).get(`/api/systems/${id}/install`),
+  },
+  {
+    name: 'GET install measured',
+    action: 'view',
+    call: (b, id) => request(b).get(`/api/systems/${id}/install/measured`),
+  },
+  {
+    name: 'POST install component',
+    action: 'configure',
+    call: (b, id) =>
+      request(b)
+        .post(`/api/systems/${id}/install/components`)
+        .send({
+          name: 'Matrix fridge',
+          ratings: { kind: 'fridge', watts: 40, hoursPerDay: 24, dutyCycle: 0.3, ac: false },
+        }),
+  },
 ];
 
 /** What a route must answer when allowed: 404 for a device that does not exist is still "let in". */
@@ -110,6 +131,7 @@ const ALLOWED_STATUS: Record<string, number> = {
   'POST rotate': 404,
   'GET monitor status': 404,
   'POST share code': 201,
+  'POST install component': 201,
 };
 
 type Node = Awaited<ReturnType<typeof startTestServer>>;

@@ -55,3 +55,12 @@ describe('circuit form', () => {
     expect(controlPathOf('protection.ratingA', 'awg')).toBe('protection.ratingA');
   });
 });
+
+describe('circuit form after a save', () => {
+  it('starts again from the defaults: 30 °C ambient, two conductors bundled, 3 % drop', () => {
+    const form = circuitForm();
+    form.patchValue({ ambient: 45, bundledConductors: 6, allowedDropPercent: 10 });
+    form.reset();
+    expect(form.getRawValue()).toMatchObject({ ambient: 30, bundledConductors: 2, allowedDropPercent: 3 });
+  });
+});

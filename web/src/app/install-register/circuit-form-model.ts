@@ -4,8 +4,9 @@ import { FormControl, FormGroup, Validators, type ValidatorFn } from '@angular/f
 import { AWG_SIZES, type CircuitWiring, type RegisterCircuit } from '@cellwarden/shared';
 import { TemperatureUnit, inUnit, toCelsius } from '../core/temperature-unit';
 
+// A control with a default keeps it on reset (nonNullable), so a fresh form after a save starts from it again.
 const number = (value: number | null, validators: ValidatorFn[] = []) =>
-  new FormControl<number | null>(value, { validators });
+  new FormControl<number | null>(value, { validators, nonNullable: value !== null });
 
 /** A fresh circuit form with the defaults an installer most often keeps. */
 export function circuitForm() {

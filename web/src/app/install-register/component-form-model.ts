@@ -6,6 +6,8 @@ import type { ComponentKind, ComponentRatings, RegisterComponent } from '@cellwa
 const num = (value: number | null, min: number, max: number, required = true) =>
   new FormControl<number | null>(value, {
     validators: [...(required ? [Validators.required] : []), Validators.min(min), Validators.max(max)],
+    // A control with a default keeps it on reset.
+    nonNullable: value !== null,
   });
 
 /** Fields of each kind, by control name. */
