@@ -17,6 +17,13 @@ import { printTable, type Row } from './bench-table';
 
 const quick = process.argv.includes('--quick');
 const profile = process.argv.includes('--profile');
+// `--only=storage,e2e,latency,restart,history,health,dashboard` runs just those parts (restart needs latency):
+// the whole bench loads a shared 2-core machine for minutes, a change is usually measured on the parts it touches.
+const only = process.argv
+  .find((a) => a.startsWith('--only='))
+  ?.slice('--only='.length)
+  .split(',');
+const runs = (part: string) => !only || only.includes(part);
 const root = join(__dirname, '..');
 const url = process.env.CW_BENCH_DATABASE_URL;
 if (!url) throw new Error('run through `npm run bench`, which starts the cluster');
@@ -179,58 +186,73 @@ async function main() {
     { type: QueryTypes.SELECT },
   );
   console.log('storage ceilings …');
-  const insertRate = await storageCeilings(ceilingSystems.map((s) => s.id));
+  const insertRate =
+    runs('storage') || runs('e2e') ? await storageCeilings(ceilingSystems.map((s) => s.id)) : NaN;
   const profileDir = join(root, '.data', 'bench-profiles');
   if (profile) mkdirSync(profileDir, { recursive: true });
   let product = await startProduct({ databaseUrl: url!, profileDir: profile ? profileDir : undefined });
   try {
     const monitors = await createFleet(sequelize, product.baseUrl, quick ? 100 : 1000);
-    console.log('end to end …');
-    await endToEnd(product, monitors, insertRate);
-    console.log('latency …');
-    await latencyAt(product, monitors.slice(0, 5), 10).then((f) => f.close());
-    for (const size of quick ? [100] : [100, 500])
-      await (await latencyAt(product, monitors.slice(0, size), quick ? 10 : 30)).close();
-    const everyone = await latencyAt(product, monitors, quick ? 10 : 30);
-    console.log('restart …');
-    product = await connectStorm(product, monitors, everyone);
-    await everyone.close();
-    console.log('history …');
-    const [history] = await sequelize.query<{ id: string }>(
-      `INSERT INTO systems (name, kind, chemistry, nominal_voltage, rated_capacity_ah, usable_capacity_ah, owner_id)
+    if (runs('e2e')) {
+      console.log('end to end …');
+      await endToEnd(product, monitors, insertRate);
+    }
+    if (runs('latency')) {
+      console.log('latency …');
+      await latencyAt(product, monitors.slice(0, 5), 10).then((f) => f.close());
+      for (const size of quick ? [100] : [100, 500])
+        await (await latencyAt(product, monitors.slice(0, size), quick ? 10 : 30)).close();
+      const everyone = await latencyAt(product, monitors, quick ? 10 : 30);
+      if (runs('restart')) {
+        console.log('restart …');
+        product = await connectStorm(product, monitors, everyone);
+      }
+      await everyone.close();
+    }
+    const token = await signIn(product.baseUrl);
+    if (runs('history')) {
+      console.log('history …');
+      const [history] = await sequelize.query<{ id: string }>(
+        `INSERT INTO systems (name, kind, chemistry, nominal_voltage, rated_capacity_ah, usable_capacity_ah, owner_id)
        SELECT 'History', kind, chemistry, nominal_voltage, rated_capacity_ah, usable_capacity_ah, owner_id
        FROM systems LIMIT 1 RETURNING id`,
-      { type: QueryTypes.SELECT },
-    );
-    const now = Date.now();
-    await seedHistory(sequelize, history.id, quick ? 30 : 365, now);
-    const token = await signIn(product.baseUrl);
-    for (const h of await timeHistory({
-      sequelize,
-      baseUrl: product.baseUrl,
-      token,
-      systemId: history.id,
-      now,
-      repeats: quick ? 5 : 15,
-    }))
-      rows.push({
-        what: `history API, ${h.label} (${h.points} points)`,
-        value: `${h.apiMs.toFixed(1)} ms`,
-        against: `its SQL ${h.sqlMs.toFixed(1)} ms`,
-        ratio: (h.apiMs / h.sqlMs).toFixed(2),
-      });
-    console.log('battery health …');
-    rows.push(
-      ...(await timeBatteryHealth({
+        { type: QueryTypes.SELECT },
+      );
+      const now = Date.now();
+      await seedHistory(sequelize, history.id, quick ? 30 : 365, now);
+      for (const h of await timeHistory({
         sequelize,
         baseUrl: product.baseUrl,
         token,
+        systemId: history.id,
+        now,
         repeats: quick ? 5 : 15,
-        paint:
-          existsSync(join(root, 'dist', 'web', 'browser', 'index.html')) && existsSync('/usr/bin/chromium'),
-      })),
-    );
-    if (existsSync(join(root, 'dist', 'web', 'browser', 'index.html')) && existsSync('/usr/bin/chromium')) {
+      }))
+        rows.push({
+          what: `history API, ${h.label} (${h.points} points)`,
+          value: `${h.apiMs.toFixed(1)} ms`,
+          against: `its SQL ${h.sqlMs.toFixed(1)} ms`,
+          ratio: (h.apiMs / h.sqlMs).toFixed(2),
+        });
+    }
+    if (runs('health')) {
+      console.log('battery health …');
+      rows.push(
+        ...(await timeBatteryHealth({
+          sequelize,
+          baseUrl: product.baseUrl,
+          token,
+          repeats: quick ? 5 : 15,
+          paint:
+            existsSync(join(root, 'dist', 'web', 'browser', 'index.html')) && existsSync('/usr/bin/chromium'),
+        })),
+      );
+    }
+    if (
+      runs('dashboard') &&
+      existsSync(join(root, 'dist', 'web', 'browser', 'index.html')) &&
+      existsSync('/usr/bin/chromium')
+    ) {
       console.log('dashboard …');
       const d = await timeDashboard({
         baseUrl: product.baseUrl,

@@ -23,7 +23,9 @@ const cluster = describeCluster({
 function main() {
   const args = process.argv.slice(2);
   ensureDependencies();
-  if (!args.includes('--quick')) ensureWebBuild();
+  const only = args.find((a) => a.startsWith('--only='));
+  const paints = !only || /dashboard|health/.test(only);
+  if (!args.includes('--quick') && paints) ensureWebBuild();
   prepareDataRoot(join(projectRoot, '.data'));
   destroyCluster(cluster);
   startCluster(cluster);
