@@ -24,12 +24,14 @@ afterAll(async () => {
   await node?.stop();
 });
 
-async function installerPage(width: number): Promise<Page> {
+async function installerPage(width: number, theme: 'light' | 'dark' = 'light'): Promise<Page> {
   // A page of its own context: axe's builder needs one.
   const context = await chromium.browser.newContext({
+    colorScheme: theme,
     viewport: { width, height: 900 },
     reducedMotion: 'reduce',
   });
+  await context.addInitScript((mode) => localStorage.setItem('cellwarden.theme', mode), theme);
   const page = await context.newPage();
   const path = `/systems/${vanId}/install`;
   await page.goto(`${node.baseUrl}/sign-in?returnUrl=${encodeURIComponent(path)}`);
@@ -87,16 +89,21 @@ it('registers a fridge circuit with its fuse far from the battery, sees it fail 
   await page.context().close();
 }, 90_000);
 
-it('is axe-clean at phone and desktop width, the tables reachable by keyboard', async () => {
+it('is axe-clean at phone and desktop width in both themes, the tables reachable by keyboard', async () => {
   const found: Record<string, string[]> = {};
-  for (const width of [390, 1280]) {
-    const page = await installerPage(width);
+  for (const [width, theme] of [
+    [390, 'light'],
+    [1280, 'light'],
+    [390, 'dark'],
+    [1280, 'dark'],
+  ] as const) {
+    const page = await installerPage(width, theme);
     await page.getByRole('heading', { name: 'Design against measured' }).waitFor();
     await page.waitForLoadState('networkidle');
     const result = await new AxeBuilder({ page })
       .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa', 'best-practice'])
       .analyze();
-    found[width] = result.violations.map(
+    found[`${width} ${theme}`] = result.violations.map(
       (v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`,
     );
     // The circuits table scrolls sideways on a phone: its region takes focus from the keyboard.
@@ -106,5 +113,5 @@ it('is axe-clean at phone and desktop width, the tables reachable by keyboard', 
     );
     await page.context().close();
   }
-  expect(found).toEqual({ 390: [], 1280: [] });
-}, 90_000);
+  expect(found).toEqual({ '390 light': [], '1280 light': [], '390 dark': [], '1280 dark': [] });
+}, 150_000);
