@@ -125,6 +125,12 @@ export const routes: Routes = [
     title: 'Set a new password · Cellwarden',
     loadComponent: () => import('./password-reset/new-password/new-password').then((m) => m.NewPassword),
   },
+  {
+    path: 'account',
+    title: 'Your account · Cellwarden',
+    canActivate: [authGuard],
+    loadComponent: () => import('./account/account').then((m) => m.Account),
+  },
   { path: '', pathMatch: 'full', redirectTo: 'systems' },
   { path: '**', redirectTo: 'systems' },
 ];
