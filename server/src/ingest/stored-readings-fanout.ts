@@ -1,0 +1,51 @@
+import type { LiveAnalytics } from '../alerts/live-analytics';
+import type { DevicesRepository } from '../devices/devices-repository';
+import type { CommissioningService } from '../installer/commissioning-service';
+import type { Logger } from '../logger';
+import type { ReadingsHub } from '../telemetry/readings-hub';
+import type { ReadingRow } from '../telemetry/readings-repository';
+
+/**
+ * What happens to a batch once its transaction has committed (the batch writer's `onStored`).
+ *
+ * The order matters:
+ * 1. Running commissioning checks see every reading first, synchronously, so a check finishing on this batch
+ *    never waits for the analytics or the live stream.
+ * 2. Each reading then goes through the live analytics and is published on the hub with what they derived
+ *    (runtime, alerts) as soon as that reading is done, not after the whole batch: an alert stored for one
+ *    reading must not hold up the rest. The analytics keep the order within each system, so the live stream
+ *    does too.
+ * 3. Last, the monitors' `last_seen_at` is moved forward once per device (the latest measured time in the
+ *    batch); a failure there is logged and never touches the readings, which are already stored.
+ */
+export function createStoredReadingsFanout(deps: {
+  checks: Pick<CommissioningService, 'onReading'>;
+  analytics: Pick<LiveAnalytics, 'process'>;
+  hub: Pick<ReadingsHub, 'publish'>;
+  devices: Pick<DevicesRepository, 'markSeen'>;
+  logger: Logger;
+  now: () => number;
+}): (rows: readonly ReadingRow[]) => void {
+  return (rows) => {
+    const lastSeen = new Map<string, number>();
+    const receivedAt = deps.now();
+    for (const { systemId, reading } of rows) deps.checks.onReading(systemId, reading);
+    for (const { deviceId, reading } of rows)
+      lastSeen.set(deviceId, Math.max(lastSeen.get(deviceId) ?? 0, reading.measuredAt));
+    for (const row of rows)
+      void deps.analytics.process([row]).then(([derived]) =>
+        deps.hub.publish({
+          systemId: row.systemId,
+          message: {
+            type: 'reading',
+            systemId: row.systemId,
+            reading: { ...row.reading, receivedAt, deviceId: row.deviceId },
+            derived,
+          },
+        }),
+      );
+    deps.devices
+      .markSeen(lastSeen)
+      .catch((error) => deps.logger.warn('last seen not updated', { error: String(error) }));
+  };
+}
