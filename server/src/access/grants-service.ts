@@ -14,10 +14,10 @@ export type AccessChangeListener = (systemId: string) => void;
 
 /** Owners grant and revoke access to one system; grantees list what they were given. */
 export function createGrantsService(deps: {
-  repository: GrantsRepository;
-  accounts: AccountsRepository;
-  systems: SystemsService;
-  audit: AuditService;
+  repository: Pick<GrantsRepository, 'listForSystem' | 'listReceived' | 'find' | 'create' | 'revoke'>;
+  accounts: Pick<AccountsRepository, 'findCompany' | 'findByEmail'>;
+  systems: Pick<SystemsService, 'getFor'>;
+  audit: Pick<AuditService, 'record'>;
   now: () => number;
   onAccessRevoked?: AccessChangeListener;
 }) {

@@ -48,11 +48,11 @@ interface SystemRuntime {
  * keeping each system's small state in memory; flag transitions become alert events.
  */
 export function createLiveAnalytics(deps: {
-  settings: SettingsRepository;
-  alerts: AlertsService;
+  settings: Pick<SettingsRepository, 'find'>;
+  alerts: Pick<AlertsService, 'record'>;
   /** For replaying a late backlog's span from the stored readings. */
-  readings: ReadingsRepository;
-  alertsRepository: AlertsRepository;
+  readings: Pick<ReadingsRepository, 'leadMonitor' | 'listRaw' | 'quietSystems'>;
+  alertsRepository: Pick<AlertsRepository, 'insertPastEpisode'>;
   /** Pushes a past alert found in a backlog to the live subscribers. */
   publish: (alert: import('@cellwarden/shared').AlertEvent) => void;
   logger: Logger;

@@ -13,8 +13,8 @@ export interface SystemWithAccess {
 
 /** Opening systems through the access policy: the only path by which routes and the stream reach a system. */
 export function createSystemsService(deps: {
-  repository: SystemsRepository;
-  grants: GrantsRepository;
+  repository: Pick<SystemsRepository, 'findById' | 'listVisible'>;
+  grants: Pick<GrantsRepository, 'factsForSystem'>;
   now: () => number;
 }) {
   async function open(user: PublicUser, systemId: string): Promise<SystemWithAccess | undefined> {

@@ -12,9 +12,9 @@ const MAX_RANGE_MS = 400 * 24 * 3600 * 1000;
 
 /** History of one system's readings, within the point budget. */
 export function createReadingsService(deps: {
-  systems: SystemsService;
-  repository: ReadingsRepository;
-  audit: AuditService;
+  systems: Pick<SystemsService, 'getFor'>;
+  repository: Pick<ReadingsRepository, 'listDownsampled'>;
+  audit: Pick<AuditService, 'record'>;
   now: () => number;
 }) {
   return {
