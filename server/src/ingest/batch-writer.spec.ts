@@ -125,3 +125,56 @@ it('refuses at once what would overfill the queue', async () => {
   ).rejects.toBeInstanceOf(IngestQueueFullError);
   writer.close();
 });
+
+it('announces only the rows the repository reports as new, and acknowledges the whole pack', async () => {
+  // A redelivered pack: the database already held the first two readings (ON CONFLICT DO NOTHING).
+  const repository = {
+    insertBatch: async (rows: readonly ReadingRow[]) => rows.filter((r) => r.reading.measuredAt > 2),
+  } as unknown as ReadingsRepository;
+  const { writer, stored } = writerOver(repository);
+  const written = writer.write(rowsOf('a', [1, 2, 3]));
+  await jest.advanceTimersByTimeAsync(0);
+  await written;
+  expect(stored.map((r) => r.reading.measuredAt)).toEqual([3]);
+});
+
+it('acknowledges a stored batch even when its listener throws, and logs why', async () => {
+  const repository = {
+    insertBatch: async (rows: readonly ReadingRow[]) => [...rows],
+  } as unknown as ReadingsRepository;
+  const logger = createMemoryLogger();
+  const writer = createBatchWriter({
+    repository,
+    logger,
+    batchSize: 500,
+    retryMs: 100,
+    queueLimit: 1000,
+    onStored: () => {
+      throw new Error('listener broke');
+    },
+  });
+  const written = writer.write(rowsOf('a', [1]));
+  await jest.advanceTimersByTimeAsync(0);
+  await expect(written).resolves.toBeUndefined();
+  expect(logger.entries.map((e) => e.message)).toEqual(['stored readings not announced']);
+});
+
+// A batch in flight at close still goes live once committed; its pack is not acknowledged either way, and its
+// redelivery is then a duplicate the insert skips.
+it('on close leaves everything unacknowledged (the broker redelivers it) and writes no more', async () => {
+  const { repository, writes } = heldRepository();
+  const { writer, stored } = writerOver(repository, { lanes: 1 });
+  const first = writer.write(rowsOf('a', [1]));
+  await jest.advanceTimersByTimeAsync(0);
+  const waiting = writer.write(rowsOf('a', [2]));
+  writer.close();
+  await expect(waiting).rejects.toThrow('ingest stopped');
+  await expect(first).rejects.toThrow('ingest stopped');
+  writes[0].done();
+  await jest.advanceTimersByTimeAsync(200);
+  expect({ tries: writes.length, stored: stored.length, queued: writer.queued }).toEqual({
+    tries: 1,
+    stored: 1,
+    queued: 0,
+  });
+});
