@@ -92,6 +92,8 @@ export function createDesignVsMeasuredService(deps: {
       peakSeconds,
       p99A: stats.p99A,
       comparisons: comparison.comparisons,
+      insulationRatingC: circuit.insulationRatingC,
+      protectionDevice: circuit.protection.device,
       standing: comparison.standing,
       sentence: comparison.sentence,
       worstPercent: comparison.worstPercent,

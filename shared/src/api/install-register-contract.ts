@@ -159,6 +159,9 @@ export interface CircuitDesignVsMeasured {
   peakSeconds: number | null;
   p99A: number | null;
   comparisons: RatingComparison[];
+  /** The conductor's insulation rating, °C, and the protective device, to word the sentence in the viewer's unit. */
+  insulationRatingC: number;
+  protectionDevice: 'fuse' | 'breaker';
   standing: RatingStanding | 'no-data';
   /** Plain words: what peaked, for how long, against which ratings. */
   sentence: string;

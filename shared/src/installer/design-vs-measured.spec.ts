@@ -48,6 +48,17 @@ describe('design against measured', () => {
     );
   });
 
+  it("names the conductor's rating in the viewer's unit", () => {
+    const result = compareWithRatings(
+      'inverter feed',
+      { samples: 600, peakA: 181, peakSeconds: 4, p99A: 120 },
+      inverterFeed,
+      // °F = °C × 9/5 + 32: 105 °C is 221 °F
+      (c) => `${(c * 9) / 5 + 32} °F`,
+    );
+    expect(result.sentence).toContain('conductor 245 A at 221 °F');
+  });
+
   it('is close from 80 % of a rating — the 125 % continuous-load factor read backwards (NEC 210.19(A)(1), 210.20(A))', () => {
     expect(CLOSE_TO_RATING_FRACTION).toBeCloseTo(0.8, 12);
     const result = compareWithRatings(

@@ -98,6 +98,8 @@ export function compareWithRatings(
   circuitName: string,
   measured: MeasuredCurrent,
   ratings: CircuitRatings,
+  /** How a temperature reads in the sentence (the viewer's unit); °C by default. */
+  temperature: (celsius: number) => string = (celsius) => `${celsius} °C`,
 ): DesignComparison {
   if (measured.samples === 0 || measured.peakA === null || measured.p99A === null)
     return {
@@ -133,7 +135,7 @@ export function compareWithRatings(
     comparisons,
     standing,
     worstPercent: (worst.measuredA / worst.limitA) * 100,
-    sentence: sentenceFor(circuitName, measured, ratings, comparisons, standing),
+    sentence: sentenceFor(circuitName, measured, ratings, comparisons, standing, temperature),
   };
 }
 
@@ -143,12 +145,14 @@ function sentenceFor(
   ratings: CircuitRatings,
   comparisons: RatingComparison[],
   standing: RatingStanding,
+  temperature: (celsius: number) => string,
 ): string {
   const amps = (value: number) => `${formatAmount(value)} A`;
   const lasted = measured.peakSeconds === null ? '' : ` for ${formatAmount(measured.peakSeconds)} s`;
   const limits = comparisons.map((c) => {
     if (c.rating === 'fuse') return `${ratings.protectionDevice} ${amps(c.limitA)}`;
-    if (c.rating === 'conductor') return `conductor ${amps(c.limitA)} at ${ratings.insulationRatingC} °C`;
+    if (c.rating === 'conductor')
+      return `conductor ${amps(c.limitA)} at ${temperature(ratings.insulationRatingC)}`;
     return c.rating === 'bms-peak' ? `BMS ${amps(c.limitA)} peak` : `BMS ${amps(c.limitA)} continuous`;
   });
   const head = `${circuitName} peaked at ${amps(measured.peakA!)}${lasted}, 99 % of the time at or below ${amps(measured.p99A!)} — ${limits.join(', ')}`;

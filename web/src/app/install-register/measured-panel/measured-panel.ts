@@ -7,7 +7,9 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { CircuitDesignVsMeasured, RatingComparison } from '@cellwarden/shared';
 import { catchError, combineLatest, map, of, startWith, switchMap } from 'rxjs';
 import { apiProblem } from '../../core/api-error';
+import { Preferences } from '../../core/preferences';
 import { InstallRegisterApi } from '../install-register-api';
+import { measuredSentence } from './measured-sentence';
 
 type Measured =
   | { phase: 'loading' }
@@ -31,6 +33,7 @@ const RATING_NAMES: Record<RatingComparison['rating'], string> = {
 })
 export class MeasuredPanel {
   private readonly api = inject(InstallRegisterApi);
+  private readonly unit = inject(Preferences).temperatureUnit;
 
   /** The system whose circuits are compared. */
   readonly systemId = input.required<string>();
@@ -52,6 +55,10 @@ export class MeasuredPanel {
     ),
     { initialValue: { phase: 'loading' } as Measured },
   );
+
+  protected sentence(circuit: CircuitDesignVsMeasured): string {
+    return measuredSentence(circuit, this.unit());
+  }
 
   protected ratingName(rating: RatingComparison['rating']): string {
     return RATING_NAMES[rating];
