@@ -58,6 +58,13 @@ describe('requireUser', () => {
     expect(asked).toEqual([SESSION_ID]);
   });
 
+  it('refuses a token signed with another secret', async () => {
+    const { app, asked } = appWith(() => true);
+    const forged = signAccessToken(`${SECRET}-other`, { userId: USER_ID, sessionId: SESSION_ID }, 600);
+    expect((await request(app).get('/api/second').set('authorization', `Bearer ${forged}`)).status).toBe(401);
+    expect(asked).toEqual([]);
+  });
+
   it('refuses a request without a token at every mount', async () => {
     const { app, asked } = appWith(() => true);
     expect((await request(app).get('/api/second')).status).toBe(401);

@@ -2,7 +2,7 @@ import type { RequestHandler } from 'express';
 import passport from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import { notAuthenticated } from '../errors/app-error';
-import { readAccessClaims, TOKEN_ALGORITHM, TOKEN_AUDIENCE } from './access-token';
+import { readAccessClaims, TOKEN_ALGORITHM, TOKEN_AUDIENCE, tokenKey } from './access-token';
 import type { AccountsService, PublicUser } from './accounts-service';
 
 declare module 'express-serve-static-core' {
@@ -26,7 +26,8 @@ export function createRequireUser(accounts: AccountsService, jwtSecret: string):
     new JwtStrategy(
       {
         jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-        secretOrKey: jwtSecret,
+        // A key object (see tokenKey), which passport-jwt hands to jsonwebtoken as it is; its types say string.
+        secretOrKey: tokenKey(jwtSecret) as unknown as string,
         algorithms: [TOKEN_ALGORITHM],
         audience: TOKEN_AUDIENCE,
       },
