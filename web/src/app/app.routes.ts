@@ -1,6 +1,10 @@
 import { Routes } from '@angular/router';
 import { authGuard } from './core/auth-guard';
+import { loadAlongside } from './core/load-alongside';
 import { roleGuard } from './core/role-guard';
+
+// The live view is the first screen after a reload; its code loads while the session is restored.
+const liveView = () => import('./live/live').then((m) => m.Live);
 
 export const routes: Routes = [
   {
@@ -23,8 +27,8 @@ export const routes: Routes = [
   {
     path: 'systems/:id',
     title: 'Live · Cellwarden',
-    canActivate: [authGuard],
-    loadComponent: () => import('./live/live').then((m) => m.Live),
+    canActivate: [loadAlongside(liveView), authGuard],
+    loadComponent: liveView,
   },
   {
     path: 'systems/:id/history',

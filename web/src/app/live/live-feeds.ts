@@ -1,10 +1,10 @@
 import type { SystemSettings, SystemStatus, SystemSummary } from '@cellwarden/shared';
-import { Observable, catchError, concat, filter, map, of, scan, startWith, takeWhile } from 'rxjs';
+import { Observable, catchError, concat, filter, map, merge, of, scan, startWith, takeWhile } from 'rxjs';
 import { Api } from '../core/api';
 import { ApiProblem, apiProblem } from '../core/api-error';
 import { LiveStream, SystemStreamEvent } from '../core/live-stream';
 import { SettingsApi } from '../core/settings-api';
-import { EMPTY_LIVE_STATE, LiveState, applyStreamEvent, seedLiveState } from './live-state';
+import { LiveState, applyStreamEvent, seedLiveState } from './live-state';
 import { ChartPoint, appendWithin } from './to-chart-series';
 
 /** How far back the live chart reaches. */
@@ -22,23 +22,36 @@ export function systemOrMissing(api: Api, id: string): Observable<SystemSummary 
 }
 
 type LiveStep = { kind: 'seed'; status: SystemStatus } | { kind: 'event'; event: SystemStreamEvent };
+/** The state once the status has arrived (null before), and the stream events that came ahead of it. */
+type Folding = { state: LiveState | null; early: SystemStreamEvent[] };
 
-/** The status, then every stream event folded in; stops listening once access ends. */
+/**
+ * The status, then every stream event folded in; stops listening once access ends. The stream is subscribed
+ * at the same time as the status is asked for (not after it), so the socket opens while the status is on its
+ * way; events arriving first wait for it and are folded in after it.
+ */
 export function liveStates(api: Api, stream: LiveStream, id: string): Observable<LiveLoad> {
-  return concat(
+  return merge(
     api.status(id).pipe(map((status): LiveStep => ({ kind: 'seed', status }))),
     stream.events(id).pipe(map((event): LiveStep => ({ kind: 'event', event }))),
   ).pipe(
-    scan(
-      (state: LiveState, step: LiveStep) =>
-        step.kind === 'seed' ? seedLiveState(step.status) : applyStreamEvent(state, step.event),
-      EMPTY_LIVE_STATE,
-    ),
-    map((state): LiveLoad => ({ phase: 'ready', state })),
+    scan(foldLiveStep, { state: null, early: [] }),
+    filter((folding): folding is { state: LiveState; early: [] } => folding.state !== null),
+    map((folding): LiveLoad => ({ phase: 'ready', state: folding.state })),
     takeWhile((load) => load.phase !== 'ready' || !load.state.accessEnded, true),
     catchError((error: unknown) => of<LiveLoad>({ phase: 'error', problem: apiProblem(error) })),
     startWith<LiveLoad>({ phase: 'loading' }),
   );
+}
+
+/** One step of `liveStates`: exported for its spec. */
+export function foldLiveStep(folding: Folding, step: LiveStep): Folding {
+  if (step.kind === 'seed') {
+    // A reading no newer than the status's own is ignored by applyStreamEvent, as it is later.
+    return { state: folding.early.reduce(applyStreamEvent, seedLiveState(step.status)), early: [] };
+  }
+  if (folding.state) return { state: applyStreamEvent(folding.state, step.event), early: [] };
+  return { state: null, early: [...folding.early, step.event] };
 }
 
 /**
