@@ -8,6 +8,8 @@ import { defineSessionModels } from '../accounts/session-models';
 import { defineAuditModels } from '../audit/audit-entry-model';
 import { definePreferenceModels } from '../settings/user-preference-model';
 import { defineInstallRegisterModels } from '../install-register/install-register-models';
+import { defineSystemModels } from '../systems/system-model';
+import { defineGrantModels } from '../access/grant-model';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -17,6 +19,8 @@ function defineModels(sequelize: Sequelize) {
     ...defineAuditModels(sequelize),
     ...definePreferenceModels(sequelize),
     ...defineInstallRegisterModels(sequelize),
+    ...defineSystemModels(sequelize),
+    ...defineGrantModels(sequelize),
   };
   const {
     Company,
@@ -47,6 +51,15 @@ function defineModels(sequelize: Sequelize) {
   // A component a circuit feeds is not removed before the circuit (RESTRICT in the migration too).
   models.InstallComponent.hasMany(models.InstallCircuit, { as: 'circuits', foreignKey: 'componentId' });
   models.InstallCircuit.belongsTo(models.InstallComponent, { as: 'component', foreignKey: 'componentId' });
+  // A system belongs to its owner and, until the owner ends it, its installer company.
+  const { System, AccessGrant } = models;
+  System.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
+  System.belongsTo(Company, { as: 'installerCompany', foreignKey: 'installerCompanyId' });
+  System.hasMany(AccessGrant, { as: 'grants', foreignKey: 'systemId' });
+  AccessGrant.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  AccessGrant.belongsTo(User, { as: 'granter', foreignKey: 'grantedBy' });
+  AccessGrant.belongsTo(Company, { as: 'granteeCompany', foreignKey: 'granteeCompanyId' });
+  AccessGrant.belongsTo(User, { as: 'granteeUser', foreignKey: 'granteeUserId' });
   return models;
 }
 

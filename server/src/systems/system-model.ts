@@ -1,0 +1,66 @@
+// Sequelize model of a battery system (table from the migrations; never synced). The fleet list and a system's
+// summary stay SQL in systems-repository.ts: they join the latest reading of the partitioned readings table.
+import {
+  DataTypes,
+  Model,
+  fn,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+import type { ChargeSource, FlagThresholdSettings, SystemSettings } from '@cellwarden/shared';
+
+/** One battery system: its battery, its BMS's ratings, its charge sources and the owner's flag overrides. */
+export class System extends Model<InferAttributes<System>, InferCreationAttributes<System>> {
+  declare id: CreationOptional<string>;
+  declare name: string;
+  declare kind: SystemSettings['kind'];
+  declare chemistry: SystemSettings['battery']['chemistry'];
+  declare nominalVoltage: 12 | 24 | 48;
+  declare ratedCapacityAh: number;
+  declare usableCapacityAh: number;
+  declare bmsContinuousDischargeA: CreationOptional<number | null>;
+  declare bmsLowVoltageCutoffV: CreationOptional<number | null>;
+  declare bmsPeakDischargeA: CreationOptional<number | null>;
+  declare bmsColdChargeCutoff: CreationOptional<boolean | null>;
+  declare ownerId: ForeignKey<string>;
+  declare installerCompanyId: ForeignKey<string> | null;
+  declare timeZone: CreationOptional<string>;
+  declare chargeSources: CreationOptional<ChargeSource[]>;
+  /** Only the thresholds the owner overrode. */
+  declare flagThresholds: CreationOptional<Partial<FlagThresholdSettings>>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+/** Binds a subclass of System to one Sequelize instance. */
+export function defineSystemModels(sequelize: Sequelize) {
+  const BoundSystem = class extends System {};
+  BoundSystem.init(
+    {
+      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      name: { type: DataTypes.TEXT, allowNull: false },
+      kind: { type: DataTypes.TEXT, allowNull: false },
+      chemistry: { type: DataTypes.TEXT, allowNull: false },
+      nominalVoltage: { type: DataTypes.INTEGER, allowNull: false },
+      ratedCapacityAh: { type: DataTypes.DOUBLE, allowNull: false },
+      usableCapacityAh: { type: DataTypes.DOUBLE, allowNull: false },
+      bmsContinuousDischargeA: DataTypes.DOUBLE,
+      bmsLowVoltageCutoffV: DataTypes.DOUBLE,
+      bmsPeakDischargeA: DataTypes.DOUBLE,
+      bmsColdChargeCutoff: DataTypes.BOOLEAN,
+      ownerId: { type: DataTypes.UUID, allowNull: false },
+      installerCompanyId: DataTypes.UUID,
+      // The migration's defaults, written as SQL so a row made here gets exactly the column's default.
+      timeZone: { type: DataTypes.TEXT, defaultValue: 'UTC' },
+      chargeSources: { type: DataTypes.JSONB, defaultValue: [] },
+      flagThresholds: { type: DataTypes.JSONB, defaultValue: {} },
+      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+    },
+    { sequelize, modelName: 'System', tableName: 'systems', underscored: true },
+  );
+  return { System: BoundSystem };
+}
