@@ -266,12 +266,27 @@ describe('the battery health API', () => {
     ['from=2020-01-01T00:00:00Z&to=2026-11-01T00:00:00Z', 'to'],
     ['from=2026-11-01T00:00:00Z&from=2026-10-01T00:00:00Z&to=2026-12-01T00:00:00Z', 'from'],
     ['from=2026-11-01T00:00:00Z&to=2026-12-01T00:00:00Z&locale=%21%21', 'locale'],
+    ['from=2026-11-01T00:00:00Z&to=2026-12-01T00:00:00Z&unit=K', 'unit'],
   ])('answers 400 naming the field for the report query "%s"', async (query, field) => {
     for (const format of ['pdf', 'csv']) {
       const response = await get(`/api/systems/${vanId}/battery-health/report.${format}?${query}`, owner);
       expect(response.status).toBe(400);
       expect(response.body.error.field).toBe(field);
     }
+  });
+
+  it('writes the sentences and the report in °F for a reader who asks for it', async () => {
+    const words = (await get(`/api/systems/${vanId}/battery-health?locale=en-GB&unit=F`, owner)).body.words;
+    // The charging-limit sentences name 0 °C as 32 °F, and no Celsius figure is left.
+    expect(words.join(' ')).toMatch(/below 32 °F/);
+    expect(words.join(' ')).not.toMatch(/°C/);
+    const csv = await get(
+      `/api/systems/${vanId}/battery-health/report.csv?from=2025-12-01T00:00:00Z&to=2026-12-01T00:00:00Z&unit=F`,
+      owner,
+    );
+    expect(csv.status).toBe(200);
+    // 0 °C is 32 °F (NIST SP 811, §B.8).
+    expect(csv.text).toMatch(/^temperature,below 32 °F,\d+,,h/m);
   });
 
   it('answers 400 naming locale for a bad locale on the screen’s call', async () => {

@@ -19,11 +19,14 @@ const localeSchema = z
       return false;
     }
   }, 'locale must be a language tag such as en-GB');
-const overviewQuery = z.object({ locale: localeSchema.optional() });
+// The viewer's temperature unit for the sentences and the report; °C unless asked otherwise.
+const unitSchema = z.enum(['C', 'F'], { error: 'unit must be C or F' }).default('C');
+const overviewQuery = z.object({ locale: localeSchema.optional(), unit: unitSchema });
 const reportQuery = z.object({
   from: queryTimeSchema('from'),
   to: queryTimeSchema('to'),
   locale: localeSchema.optional(),
+  unit: unitSchema,
 });
 
 /** The locale asked for, else the browser's first language, else English. */
@@ -35,11 +38,11 @@ function localeOf(req: Request, asked: string | undefined): string {
 
 /** The report's period, checked before anything is read. */
 function parsePeriod(req: Request) {
-  const { from, to, locale } = reportQuery.parse(req.query);
+  const { from, to, locale, unit } = reportQuery.parse(req.query);
   if (from >= to) throw invalidInput('from', 'from must be before to');
   if (to.getTime() - from.getTime() > HEALTH_REPORT_MAX_DAYS * 86400_000)
     throw invalidInput('to', `the period must be at most ${HEALTH_REPORT_MAX_DAYS} days`);
-  return { from: from.getTime(), to: to.getTime(), locale: localeOf(req, locale) };
+  return { from: from.getTime(), to: to.getTime(), locale: localeOf(req, locale), unit };
 }
 
 /** File name of a report: the period's first and last day, nothing from the system's own name. */
@@ -55,8 +58,8 @@ export function createBatteryHealthRoutes(deps: {
 }): Router {
   const router = Router();
   router.get('/:systemId/battery-health', async (req, res) => {
-    const { locale } = overviewQuery.parse(req.query);
-    res.json(await deps.health.overview(req.currentUser!, req.params.systemId, localeOf(req, locale)));
+    const { locale, unit } = overviewQuery.parse(req.query);
+    res.json(await deps.health.overview(req.currentUser!, req.params.systemId, localeOf(req, locale), unit));
   });
   router.get('/:systemId/battery-health/report.pdf', async (req, res) => {
     const period = parsePeriod(req);

@@ -11,7 +11,7 @@ import type { SettingsRepository } from '../settings/settings-repository';
 import type { SystemsService } from '../systems/systems-service';
 import type { BatteryHealthRepository } from './battery-health-repository';
 import { HEALTH_METHOD, lateDataNote } from './health-method';
-import type { HealthReportInput } from './health-report-input';
+import type { HealthReportInput, TemperatureUnitCode } from './health-report-input';
 
 const HOUR_MS = 3600_000;
 const PAGE_HOURS = 5000;
@@ -49,7 +49,12 @@ export function createBatteryHealthService(deps: {
 
   return {
     /** What the screen shows: the checkpointed figures and every capacity sample, never the raw readings. */
-    async overview(user: PublicUser, systemId: string, locale: string): Promise<BatteryHealthResponse> {
+    async overview(
+      user: PublicUser,
+      systemId: string,
+      locale: string,
+      unit: TemperatureUnitCode = 'C',
+    ): Promise<BatteryHealthResponse> {
       const { system, access } = await deps.systems.openFor(user, systemId, 'view');
       const settings = (await deps.settings.find(system.id))!;
       const checkpoint = await repository.findCheckpoint(system.id);
@@ -74,7 +79,7 @@ export function createBatteryHealthService(deps: {
         capacity: trend,
         sampleCount: samples.length,
         figures,
-        words: figures ? healthWords(trend, figures, locale) : [],
+        words: figures ? healthWords(trend, figures, locale, unit) : [],
         method: HEALTH_METHOD,
         mayExport: access.allowed.has('export'),
         lateDataNote: lateDataNote(checkpoint?.lateRebuilds ?? 0),
@@ -85,7 +90,7 @@ export function createBatteryHealthService(deps: {
     async report(
       user: PublicUser,
       systemId: string,
-      period: { from: number; to: number; format: 'pdf' | 'csv'; locale: string },
+      period: { from: number; to: number; format: 'pdf' | 'csv'; locale: string; unit?: TemperatureUnitCode },
     ): Promise<HealthReportInput> {
       const system = await deps.systems.getFor(user, systemId, 'export');
       const settings = (await deps.settings.find(system.id))!;
@@ -119,8 +124,9 @@ export function createBatteryHealthService(deps: {
         trend,
         samples,
         figures,
-        words: covered ? healthWords(trend, figures, period.locale) : [],
+        words: covered ? healthWords(trend, figures, period.locale, period.unit ?? 'C') : [],
         method: HEALTH_METHOD,
+        unit: period.unit ?? 'C',
       };
     },
   };

@@ -2,7 +2,7 @@ import { stringify } from 'csv-stringify/sync';
 import { neutraliseSpreadsheetFormula } from '../uploads/spreadsheet-formula';
 import { HEALTH_DISCLAIMERS } from './health-method';
 import type { HealthReportInput } from './health-report-input';
-import { BAND_NAMES, CHEMISTRY_NAMES, localTime } from './health-report-text';
+import { bandName, CHEMISTRY_NAMES, localTime, temperatureText } from './health-report-text';
 
 /** Columns of the health report CSV: one tidy table, each row a section, a quantity and its value. */
 export const HEALTH_CSV_HEADER = [
@@ -94,7 +94,7 @@ export function healthReportCsv(report: HealthReportInput): string {
       band: round(s.sigmaAh, 2),
       unit: 'Ah',
       ...at(s.fullAt, s.at),
-      note: `${s.method}; ${round(s.countedAh, 1)} Ah counted; ${round(s.temperature, 1)} °C`,
+      note: `${s.method}; ${round(s.countedAh, 1)} Ah counted; ${temperatureText(s.temperature, report.unit)}`,
     });
   const f = report.figures;
   rows.push(
@@ -116,11 +116,11 @@ export function healthReportCsv(report: HealthReportInput): string {
       quantity: 'hours hot at high charge',
       value: round(f.hotAtHighChargeHours, 0),
       unit: 'h',
-      note: '35 °C or more at 90 % charge or more',
+      note: `${temperatureText(35, report.unit, 0)} or more at 90 % charge or more`,
     },
     ...f.temperatureHours.map((t) => ({
       section: 'temperature',
-      quantity: BAND_NAMES[t.band] ?? t.band,
+      quantity: bandName(t.band, report.unit),
       value: round(t.hours, 0),
       unit: 'h',
     })),
@@ -136,7 +136,7 @@ export function healthReportCsv(report: HealthReportInput): string {
       value: round(e.ahIn, 2),
       unit: 'Ah',
       ...at(e.start, e.end),
-      note: `pack ${round(e.lowestTemperature, 1)} to ${round(e.highestTemperature, 1)} °C`,
+      note: `pack ${temperatureText(e.lowestTemperature, report.unit)} to ${temperatureText(e.highestTemperature, report.unit)}`,
     })),
     ...f.hotCharging.map((e) => ({
       section: 'hot charging',
@@ -144,7 +144,7 @@ export function healthReportCsv(report: HealthReportInput): string {
       value: round(e.ahIn, 2),
       unit: 'Ah',
       ...at(e.start, e.end),
-      note: `pack ${round(e.lowestTemperature, 1)} to ${round(e.highestTemperature, 1)} °C`,
+      note: `pack ${temperatureText(e.lowestTemperature, report.unit)} to ${temperatureText(e.highestTemperature, report.unit)}`,
     })),
     { section: 'method', quantity: 'method', note: report.method },
     ...HEALTH_DISCLAIMERS.map((note) => ({ section: 'disclaimer', quantity: 'disclaimer', note })),

@@ -22,4 +22,9 @@ export interface HealthReportInput {
   figures: LifeCycleFigures;
   words: string[];
   method: string;
+  /** The unit every temperature is written in (the reader's preference). */
+  unit: TemperatureUnitCode;
 }
+
+/** °C or °F. */
+export type TemperatureUnitCode = 'C' | 'F';

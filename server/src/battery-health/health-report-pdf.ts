@@ -4,11 +4,12 @@ import { bullets, field, heading } from '../records/record-layout';
 import { HEALTH_DISCLAIMERS } from './health-method';
 import type { HealthReportInput } from './health-report-input';
 import {
-  BAND_NAMES,
+  bandName,
   CHEMISTRY_NAMES,
   episodeLine,
   localDay,
   localTime,
+  temperatureText,
   winAnsiText,
 } from './health-report-text';
 
@@ -96,9 +97,12 @@ export function renderHealthReport(
   doc.moveDown(0.3).font('Helvetica-Bold').text('Hours by pack temperature').font('Helvetica');
   bullets(
     doc,
-    f.temperatureHours.map((t) => `${BAND_NAMES[t.band] ?? t.band}: ${t.hours.toFixed(0)} h`),
+    f.temperatureHours.map((t) => winAnsiText(`${bandName(t.band, report.unit)}: ${t.hours.toFixed(0)} h`)),
   );
-  say('Hours hot (35 °C or more) at 90 % charge or more', f.hotAtHighChargeHours.toFixed(0));
+  say(
+    winAnsiText(`Hours hot (${temperatureText(35, report.unit, 0)} or more) at 90 % charge or more`),
+    f.hotAtHighChargeHours.toFixed(0),
+  );
   doc.moveDown(0.3).font('Helvetica-Bold').text('Depth of discharge (cycles by depth)').font('Helvetica');
   bullets(
     doc,
@@ -118,7 +122,7 @@ export function renderHealthReport(
   else
     bullets(
       doc,
-      f.coldCharging.map((e) => winAnsiText(episodeLine(e, zone))),
+      f.coldCharging.map((e) => winAnsiText(episodeLine(e, zone, report.unit))),
     );
   doc
     .moveDown(0.2)
@@ -129,7 +133,7 @@ export function renderHealthReport(
   else
     bullets(
       doc,
-      f.hotCharging.map((e) => winAnsiText(episodeLine(e, zone))),
+      f.hotCharging.map((e) => winAnsiText(episodeLine(e, zone, report.unit))),
     );
 
   heading(doc, 'Method');

@@ -1,15 +1,30 @@
 // Text pieces the PDF and the CSV of a health report share, so both say the same thing the same way.
 import type { ChargeEpisode, TemperatureBand } from '@cellwarden/shared';
 import { stripControlCharacters } from '../mail/control-characters';
+import type { TemperatureUnitCode } from './health-report-input';
 
-/** Names of the temperature bands, °C. */
-export const BAND_NAMES: Record<TemperatureBand, string> = {
-  'below-0': 'below 0 °C',
-  '0-10': '0 to 10 °C',
-  '10-35': '10 to 35 °C',
-  '35-45': '35 to 45 °C',
-  'above-45': 'above 45 °C',
-};
+/** A temperature in the reader's unit: "−4.1 °C" or "24.6 °F" (the minus sign typeset). */
+export function temperatureText(celsius: number, unit: TemperatureUnitCode, digits = 1): string {
+  const value = unit === 'F' ? (celsius * 9) / 5 + 32 : celsius;
+  return `${signed(value, digits)} °${unit}`;
+}
+
+/** The name of a temperature band in the reader's unit. */
+export function bandName(band: TemperatureBand, unit: TemperatureUnitCode): string {
+  const t = (celsius: number) => temperatureText(celsius, unit, 0);
+  switch (band) {
+    case 'below-0':
+      return `below ${t(0)}`;
+    case '0-10':
+      return `${t(0)} to ${t(10)}`;
+    case '10-35':
+      return `${t(10)} to ${t(35)}`;
+    case '35-45':
+      return `${t(35)} to ${t(45)}`;
+    case 'above-45':
+      return `above ${t(45)}`;
+  }
+}
 
 export const CHEMISTRY_NAMES: Record<string, string> = {
   lifepo4: 'LiFePO4',
@@ -42,15 +57,20 @@ export function localTime(at: number, timeZone: string): string {
   return `${part('year')}-${part('month')}-${part('day')} ${part('hour')}:${part('minute')}`;
 }
 
-/** "2026-01-14 22:00 – 2026-01-15 04:00, 6.2 Ah in, pack −4.1 to −1.0 °C". */
-export function episodeLine(episode: ChargeEpisode, timeZone: string): string {
+/** "2026-01-14 22:00 – 2026-01-15 04:00, 6.2 Ah in, pack −4.1 °C to −1.0 °C". */
+export function episodeLine(
+  episode: ChargeEpisode,
+  timeZone: string,
+  unit: TemperatureUnitCode = 'C',
+): string {
   return (
     `${localTime(episode.start, timeZone)} – ${localTime(episode.end, timeZone)}, ` +
-    `${episode.ahIn.toFixed(1)} Ah in, pack ${signed(episode.lowestTemperature)} to ${signed(episode.highestTemperature)} °C`
+    `${episode.ahIn.toFixed(1)} Ah in, pack ${temperatureText(episode.lowestTemperature, unit)} to ` +
+    temperatureText(episode.highestTemperature, unit)
   );
 }
 
-const signed = (value: number) => value.toFixed(1).replace('-', '−');
+const signed = (value: number, digits = 1) => value.toFixed(digits).replace('-', '−');
 
 /**
  * Text the PDF's built-in Helvetica can show (WinAnsiEncoding): locale spaces become plain spaces, the minus

@@ -4,7 +4,7 @@ import { HEALTH_DISCLAIMERS, HEALTH_METHOD } from './health-method';
 import { HEALTH_CSV_HEADER, healthReportCsv } from './health-report-csv';
 import type { HealthReportInput } from './health-report-input';
 import { renderHealthReport } from './health-report-pdf';
-import { episodeLine, localDay, winAnsiText } from './health-report-text';
+import { bandName, episodeLine, localDay, winAnsiText } from './health-report-text';
 
 const HOUR = 3_600_000;
 // 2026-01-14 20:00 UTC is 22:00 in Helsinki (UTC+2 in winter).
@@ -76,6 +76,7 @@ function report(overrides: Partial<HealthReportInput> = {}): HealthReportInput {
     },
     words: ['Holds about 95 % of its rated usable capacity, ± 2 %.'],
     method: HEALTH_METHOD,
+    unit: 'C',
     ...overrides,
   };
 }
@@ -83,8 +84,14 @@ function report(overrides: Partial<HealthReportInput> = {}): HealthReportInput {
 describe('health report text', () => {
   it('writes episode times in the system’s own clock', () => {
     expect(episodeLine(report().figures.coldCharging[0], 'Europe/Helsinki')).toBe(
-      '2026-01-14 22:00 – 2026-01-15 06:00, 22.5 Ah in, pack −2.8 to −0.4 °C',
+      '2026-01-14 22:00 – 2026-01-15 06:00, 22.5 Ah in, pack −2.8 °C to −0.4 °C',
     );
+    // °F = °C × 9/5 + 32 (NIST SP 811, §B.8): −2.8 °C is 27.0 °F, −0.4 °C is 31.3 °F.
+    expect(episodeLine(report().figures.coldCharging[0], 'Europe/Helsinki', 'F')).toBe(
+      '2026-01-14 22:00 – 2026-01-15 06:00, 22.5 Ah in, pack 27.0 °F to 31.3 °F',
+    );
+    expect(bandName('35-45', 'F')).toBe('95 °F to 113 °F');
+    expect(bandName('below-0', 'C')).toBe('below 0 °C');
     expect(localDay(Date.UTC(2026, 0, 31, 23), 'Europe/Helsinki')).toBe('2026-02-01');
   });
 
@@ -110,7 +117,7 @@ describe('health report PDF', () => {
     expect(text).toContain('State of health: 95 % ± 2 % of the rated usable capacity');
     expect(text).toContain('2026-01: 186.4 ± 3.2 Ah (4)');
     expect(text).toContain('Charged while cold (1)');
-    expect(text).toContain('2026-01-14 22:00 – 2026-01-15 06:00, 22.5 Ah in, pack -2.8 to -0.4 °C');
+    expect(text).toContain('2026-01-14 22:00 – 2026-01-15 06:00, 22.5 Ah in, pack -2.8 °C to -0.4 °C');
     expect(text).toContain('Times in Europe/Helsinki.');
     expect(text).toContain('Round-trip efficiency: 96 %');
     expect(text).toMatch(/coulomb counting with open-circuit-voltage recalibration/);
@@ -148,6 +155,14 @@ describe('health report CSV', () => {
     });
     expect(find('temperature', 'below 0 °C').value).toBe('770');
     expect(rows.filter((r) => r.section === 'disclaimer')).toHaveLength(HEALTH_DISCLAIMERS.length);
+  });
+
+  it('writes temperatures in the reader’s unit when they prefer °F', () => {
+    const rows = parse(healthReportCsv(report({ unit: 'F' })), { columns: true }) as Record<string, string>[];
+    // 0 °C is 32 °F (NIST SP 811, §B.8).
+    expect(rows.find((r) => r.section === 'temperature' && r.quantity === 'below 32 °F')?.value).toBe('770');
+    const measured = rows.filter((r) => r.section !== 'disclaimer');
+    expect(measured.some((r) => /°C/.test(Object.values(r).join(' ')))).toBe(false);
   });
 
   // OWASP "CSV Injection": a cell that starts with = is prefixed with a quote.

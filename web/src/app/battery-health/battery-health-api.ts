@@ -3,6 +3,8 @@ import { Injectable, LOCALE_ID, inject } from '@angular/core';
 import type { BatteryHealthResponse } from '@cellwarden/shared';
 import type { Observable } from 'rxjs';
 import { systemPath } from '../core/api';
+import { Preferences } from '../core/preferences';
+import type { TemperatureUnit } from '../core/temperature-unit';
 
 /** A health report's file format. */
 export type HealthReportFormat = 'pdf' | 'csv';
@@ -12,11 +14,12 @@ export type HealthReportFormat = 'pdf' | 'csv';
 export class BatteryHealthApi {
   private readonly http = inject(HttpClient);
   private readonly locale = inject(LOCALE_ID);
+  private readonly preferences = inject(Preferences);
 
-  /** Capacity trend, life-cycle figures and plain words, the words in the viewer's locale. */
-  health(id: string): Observable<BatteryHealthResponse> {
+  /** Capacity trend, life-cycle figures and plain words, the words in the viewer's locale and unit. */
+  health(id: string, unit: TemperatureUnit): Observable<BatteryHealthResponse> {
     return this.http.get<BatteryHealthResponse>(systemPath(id, '/battery-health'), {
-      params: new HttpParams().set('locale', this.locale),
+      params: new HttpParams().set('locale', this.locale).set('unit', unit),
     });
   }
 
@@ -25,7 +28,8 @@ export class BatteryHealthApi {
     const params = new HttpParams()
       .set('from', from.toISOString())
       .set('to', to.toISOString())
-      .set('locale', this.locale);
+      .set('locale', this.locale)
+      .set('unit', this.preferences.temperatureUnit());
     return this.http.get(systemPath(id, `/battery-health/report.${format}`), {
       params,
       responseType: 'blob',

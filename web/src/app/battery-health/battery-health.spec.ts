@@ -98,6 +98,8 @@ describe('BatteryHealth', () => {
       (r) => r.url === '/api/systems/van-1/battery-health',
     );
     expect(request.request.params.get('locale')).toBe('en-GB');
+    // The sentences carry temperatures: they come in the person's chosen unit.
+    expect(request.request.params.get('unit')).toBe(TestBed.inject(Preferences).temperatureUnit());
     request.flush(body);
     fixture.detectChanges();
     return fixture;

@@ -62,7 +62,10 @@ export class BatteryHealth {
   readonly id = input.required<string>();
 
   protected readonly load = toSignal(
-    toObservable(this.id).pipe(switchMap((id) => asLoad(this.api.health(id)))),
+    // The sentences carry temperatures, so a change of unit asks for them again.
+    toObservable(computed(() => ({ id: this.id(), unit: this.preferences.temperatureUnit() }))).pipe(
+      switchMap(({ id, unit }) => asLoad(this.api.health(id, unit))),
+    ),
     { initialValue: { phase: 'loading' } as Load },
   );
   protected readonly health = computed(() => {
