@@ -15,6 +15,7 @@ const MODELLED_TABLES = [
   'user_preferences',
   'systems',
   'grants',
+  'devices',
 ];
 
 // The schema comes only from the migrations; the models describe it. This holds the two together: every

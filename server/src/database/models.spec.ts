@@ -67,4 +67,26 @@ describe('initModels', () => {
       expect(expiry[Op.gt].fn).toBe('now');
     }
   });
+
+  it("names the systems, grants and devices tables, and judges a grant active at the caller's instant", () => {
+    const { System, AccessGrant, Device } = initModels(offline());
+    expect([System, AccessGrant, Device].map((model) => model.getTableName())).toEqual([
+      'systems',
+      'grants',
+      'devices',
+    ]);
+    expect(System.getAttributes().flagThresholds.field).toBe('flag_thresholds');
+    expect(AccessGrant.getAttributes().grantedBy.field).toBe('granted_by');
+    expect(Object.keys(AccessGrant.getAttributes())).not.toContain('updatedAt');
+    expect(Object.keys(Device.getAttributes())).toEqual(expect.arrayContaining(['createdAt', 'updatedAt']));
+    // The access rule decides every grant of one request at the same `now` (epoch ms), which tests move.
+    const active = AccessGrant.options.scopes?.active as (now: number) => {
+      where: Record<string, unknown>;
+    };
+    const { where } = active(Date.UTC(2026, 0, 1));
+    expect(where.revokedAt).toBeNull();
+    expect((where.expiresAt as Record<symbol, Date>)[Op.gt]).toEqual(new Date('2026-01-01T00:00:00Z'));
+    const deviceActive = Device.options.scopes?.active as { where: Record<string, unknown> };
+    expect(deviceActive.where).toEqual({ revokedAt: null });
+  });
 });

@@ -10,6 +10,7 @@ import { definePreferenceModels } from '../settings/user-preference-model';
 import { defineInstallRegisterModels } from '../install-register/install-register-models';
 import { defineSystemModels } from '../systems/system-model';
 import { defineGrantModels } from '../access/grant-model';
+import { defineDeviceModels } from '../devices/device-model';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -21,6 +22,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineInstallRegisterModels(sequelize),
     ...defineSystemModels(sequelize),
     ...defineGrantModels(sequelize),
+    ...defineDeviceModels(sequelize),
   };
   const {
     Company,
@@ -52,7 +54,7 @@ function defineModels(sequelize: Sequelize) {
   models.InstallComponent.hasMany(models.InstallCircuit, { as: 'circuits', foreignKey: 'componentId' });
   models.InstallCircuit.belongsTo(models.InstallComponent, { as: 'component', foreignKey: 'componentId' });
   // A system belongs to its owner and, until the owner ends it, its installer company.
-  const { System, AccessGrant } = models;
+  const { System, AccessGrant, Device } = models;
   System.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   System.belongsTo(Company, { as: 'installerCompany', foreignKey: 'installerCompanyId' });
   System.hasMany(AccessGrant, { as: 'grants', foreignKey: 'systemId' });
@@ -60,6 +62,8 @@ function defineModels(sequelize: Sequelize) {
   AccessGrant.belongsTo(User, { as: 'granter', foreignKey: 'grantedBy' });
   AccessGrant.belongsTo(Company, { as: 'granteeCompany', foreignKey: 'granteeCompanyId' });
   AccessGrant.belongsTo(User, { as: 'granteeUser', foreignKey: 'granteeUserId' });
+  System.hasMany(Device, { as: 'devices', foreignKey: 'systemId' });
+  Device.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   return models;
 }
 
