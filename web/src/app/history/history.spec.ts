@@ -42,7 +42,7 @@ describe('History', () => {
         { provide: LOCALE_ID, useValue: 'en-GB' },
       ],
     });
-    // jsdom has no canvas; the series and plugin maths have their own specs.
+    // jsdom has no canvas; the series and the chart options (alert bands, drag to zoom) have their own specs.
     TestBed.overrideComponent(History, {
       remove: { imports: [BaseChartDirective] },
       add: { schemas: [NO_ERRORS_SCHEMA] },

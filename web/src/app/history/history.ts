@@ -16,6 +16,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router } from '@angular/router';
 import type { ChartOptions } from 'chart.js';
+import annotationPlugin from 'chartjs-plugin-annotation';
+import zoomPlugin from 'chartjs-plugin-zoom';
 import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
@@ -28,8 +30,6 @@ import { flagText } from '../core/flag-text';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
 import { describeSeries } from '../core/describe-series';
-import { alertSpansPlugin } from './alert-spans-plugin';
-import { dragZoomPlugin } from './drag-zoom-plugin';
 import { historyAlerts, historyReadings, resolutionText } from './history-feeds';
 import { CustomRange } from './custom-range/custom-range';
 import { historyChartOptions } from './history-chart-options';
@@ -48,7 +48,8 @@ import { HISTORY_SERIES, HistorySeries, seriesLabel, toHistorySeries } from './t
 @Component({
   selector: 'cw-history',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  providers: [provideChartSetup()],
+  // Alert bands and drag to zoom; registered here so the plugins load with this page only.
+  providers: [provideChartSetup(annotationPlugin, zoomPlugin)],
   imports: [
     MatButtonModule,
     MatButtonToggleModule,
@@ -81,7 +82,6 @@ export class History {
   private readonly customRange = viewChild(CustomRange);
   protected readonly presets = Object.keys(PRESET_LABELS) as RangePreset[];
   protected readonly presetLabels = PRESET_LABELS;
-  protected readonly plugins = [alertSpansPlugin, dragZoomPlugin];
   protected readonly range = computed(() => rangeFromQuery(this.from(), this.to(), Date.now()));
   protected readonly preset = computed(() => matchingPreset(this.range(), Date.now()) ?? 'custom');
 
