@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import {
   DEFAULT_EMAIL_FLAGS,
   type ChargeSource,
@@ -46,42 +46,50 @@ const toSettings = (row: SettingsRow): StoredSettings => ({
   thresholds: row.thresholds,
 });
 
+// The systems columns a system's settings are made of (the table belongs to systems; its model is System).
+const SETTINGS_ATTRIBUTES = [
+  'name',
+  'kind',
+  'timeZone',
+  'chemistry',
+  'nominalVoltage',
+  'ratedCapacityAh',
+  'usableCapacityAh',
+  'bmsContinuousDischargeA',
+  'bmsLowVoltageCutoffV',
+  'chargeSources',
+  'flagThresholds',
+];
+
 /** Data access for system settings and personal preferences. */
 export function createSettingsRepository(sequelize: Sequelize) {
-  const { UserPreference } = initModels(sequelize);
+  const { UserPreference, System } = initModels(sequelize);
   return {
     async find(systemId: string): Promise<StoredSettings | undefined> {
-      const [row] = await sequelize.query<SettingsRow>(
-        `SELECT name, kind, time_zone AS "timeZone", chemistry, nominal_voltage AS "nominalVoltage",
-           rated_capacity_ah AS "ratedCapacityAh", usable_capacity_ah AS "usableCapacityAh",
-           bms_continuous_discharge_a AS "continuousDischargeA", bms_low_voltage_cutoff_v AS "lowVoltageCutoffV",
-           charge_sources AS "chargeSources", flag_thresholds AS thresholds
-         FROM systems WHERE id = :systemId`,
-        { replacements: { systemId }, type: QueryTypes.SELECT },
-      );
-      return row && toSettings(row);
+      const row = await System.findByPk(systemId, { attributes: SETTINGS_ATTRIBUTES, raw: true });
+      if (!row) return undefined;
+      return toSettings({
+        ...row,
+        continuousDischargeA: row.bmsContinuousDischargeA ?? null,
+        lowVoltageCutoffV: row.bmsLowVoltageCutoffV ?? null,
+        thresholds: row.flagThresholds,
+      });
     },
 
     async update(systemId: string, settings: StoredSettings): Promise<void> {
-      await sequelize.query(
-        `UPDATE systems SET name = :name, kind = :kind, time_zone = :timeZone, chemistry = :chemistry,
-           nominal_voltage = :nominalVoltage, rated_capacity_ah = :ratedCapacityAh, usable_capacity_ah = :usableCapacityAh,
-           bms_continuous_discharge_a = :continuousDischargeA, bms_low_voltage_cutoff_v = :lowVoltageCutoffV,
-           charge_sources = :chargeSources::jsonb, flag_thresholds = :thresholds::jsonb, updated_at = now()
-         WHERE id = :systemId`,
+      // updated_at is set to the database's now() by the model (its default), as before.
+      await System.update(
         {
-          replacements: {
-            systemId,
-            name: settings.name,
-            kind: settings.kind,
-            timeZone: settings.timeZone,
-            ...settings.battery,
-            continuousDischargeA: settings.bms.continuousDischargeA,
-            lowVoltageCutoffV: settings.bms.lowVoltageCutoffV,
-            chargeSources: JSON.stringify(settings.chargeSources),
-            thresholds: JSON.stringify(settings.thresholds),
-          },
+          name: settings.name,
+          kind: settings.kind,
+          timeZone: settings.timeZone,
+          ...settings.battery,
+          bmsContinuousDischargeA: settings.bms.continuousDischargeA,
+          bmsLowVoltageCutoffV: settings.bms.lowVoltageCutoffV,
+          chargeSources: settings.chargeSources,
+          flagThresholds: settings.thresholds,
         },
+        { where: { id: systemId } },
       );
     },
 
