@@ -1,30 +1,32 @@
 import type { AlertEvent } from '@cellwarden/shared';
-import { Observable, catchError, map, of, startWith } from 'rxjs';
+import type { Observable } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api, ReadingHistory } from '../core/api';
-import { ApiProblem, apiProblem } from '../core/api-error';
+import { LoadState, dataFailure, toLoadState } from '../core/load-state';
 import type { TimeRange } from '../core/time-range';
 
-/** Loading, failed, or loaded. */
-export type Load<T> =
-  { phase: 'loading' } | { phase: 'error'; problem: ApiProblem } | { phase: 'ready'; value: T };
-
-function asLoad<T>(source: Observable<T>): Observable<Load<T>> {
-  return source.pipe(
-    map((value): Load<T> => ({ phase: 'ready', value })),
-    catchError((error: unknown) => of<Load<T>>({ phase: 'error', problem: apiProblem(error) })),
-    startWith<Load<T>>({ phase: 'loading' }),
+/** The downsampled readings of a range. */
+export function historyReadings(
+  api: Api,
+  id: string,
+  range: TimeRange,
+): Observable<LoadState<ReadingHistory>> {
+  return toLoadState(
+    api.readings(id, new Date(range.from), new Date(range.to)),
+    dataFailure('The readings could not be loaded. Try another range or reload the page.'),
   );
 }
 
-/** The downsampled readings of a range. */
-export function historyReadings(api: Api, id: string, range: TimeRange): Observable<Load<ReadingHistory>> {
-  return asLoad(api.readings(id, new Date(range.from), new Date(range.to)));
-}
-
 /** The alerts that overlap a range. */
-export function historyAlerts(api: AlertsApi, id: string, range: TimeRange): Observable<Load<AlertEvent[]>> {
-  return asLoad(api.alerts(id, { from: new Date(range.from), to: new Date(range.to) }));
+export function historyAlerts(
+  api: AlertsApi,
+  id: string,
+  range: TimeRange,
+): Observable<LoadState<AlertEvent[]>> {
+  return toLoadState(
+    api.alerts(id, { from: new Date(range.from), to: new Date(range.to) }),
+    dataFailure('The alerts could not be loaded.'),
+  );
 }
 
 /** Words for the server's downsampling resolution ("raw", "300s", "5m", "1h"): "one point per 4 min". */

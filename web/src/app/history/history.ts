@@ -24,7 +24,7 @@ import { switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api } from '../core/api';
 import { ChartColours } from '../core/chart-palette';
-import { loadFailureText } from '../core/api-error';
+import { loadError, loadedOr } from '../core/load-state';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { flagText } from '../core/flag-text';
 import { Preferences } from '../core/preferences';
@@ -89,37 +89,22 @@ export class History {
   private readonly request$ = toObservable(this.request);
   protected readonly readings = toSignal(
     this.request$.pipe(switchMap(({ id, range }) => historyReadings(this.api, id, range))),
-    { initialValue: { phase: 'loading' as const } },
+    { initialValue: { status: 'loading' as const } },
   );
   protected readonly alerts = toSignal(
     this.request$.pipe(switchMap(({ id, range }) => historyAlerts(this.alertsApi, id, range))),
-    { initialValue: { phase: 'loading' as const } },
+    { initialValue: { status: 'loading' as const } },
   );
 
-  protected readonly readingsProblem = computed(() => {
-    const load = this.readings();
-    return load.phase === 'error'
-      ? loadFailureText(
-          load.problem,
-          'The readings could not be loaded. Try another range or reload the page.',
-        )
-      : null;
-  });
-  protected readonly alertsProblem = computed(() => {
-    const load = this.alerts();
-    return load.phase === 'error' ? loadFailureText(load.problem, 'The alerts could not be loaded.') : null;
-  });
-  protected readonly points = computed(() => {
-    const load = this.readings();
-    return load.phase === 'ready' ? load.value.points : [];
-  });
+  protected readonly readingsProblem = computed(() => loadError(this.readings()));
+  protected readonly alertsProblem = computed(() => loadError(this.alerts()));
+  protected readonly points = computed(() => loadedOr(this.readings(), null)?.points ?? []);
   protected readonly resolution = computed(() => {
-    const load = this.readings();
-    return load.phase === 'ready' ? resolutionText(load.value.resolution) : null;
+    const history = loadedOr(this.readings(), null);
+    return history ? resolutionText(history.resolution) : null;
   });
   protected readonly alertList = computed(() => {
-    const load = this.alerts();
-    const alerts = load.phase === 'ready' ? load.value : [];
+    const alerts = loadedOr(this.alerts(), []);
     const { from, to } = this.range();
     return alerts
       .filter((a) => overlaps(a, from, to))
