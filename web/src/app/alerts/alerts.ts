@@ -26,9 +26,9 @@ import { map, switchMap } from 'rxjs';
 import { AccessApi } from '../core/access-api';
 import { Api } from '../core/api';
 import { AlertsApi } from '../core/alerts-api';
-import { loadFailureText } from '../core/api-error';
 import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';
 import { formatInstant } from '../core/date-time';
+import { loadError, loadedOr } from '../core/load-state';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
@@ -81,14 +81,11 @@ export class Alerts {
   protected readonly load = toSignal(
     toObservable(this.id).pipe(switchMap((id) => alertsLoad(this.api, id))),
     {
-      initialValue: { phase: 'loading' as const },
+      initialValue: { status: 'loading' as const },
     },
   );
   // Acknowledged alerts replace their loaded version here; reset whenever a new list loads.
-  private readonly alerts = linkedSignal<AlertEvent[]>(() => {
-    const load = this.load();
-    return load.phase === 'ready' ? load.value : [];
-  });
+  private readonly alerts = linkedSignal<AlertEvent[]>(() => loadedOr(this.load(), []));
   protected readonly filter = signal<AlertFilter>({ text: '', state: 'all' });
   protected readonly sort = signal<Sort>({ active: 'startedAt', direction: 'desc' });
   protected readonly page = signal({ index: 0, size: 10 });
@@ -119,12 +116,7 @@ export class Alerts {
       formatInstant(ms, 'dateTime', this.locale),
     );
   });
-  protected readonly problemText = computed(() => {
-    const load = this.load();
-    return load.phase === 'error'
-      ? loadFailureText(load.problem, 'The alerts could not be loaded. Reload the page to try again.')
-      : null;
-  });
+  protected readonly problemText = computed(() => loadError(this.load()));
   protected readonly rows = computed(() => this.alerts().map(toAlertRow));
   protected readonly matching = computed(() =>
     sortRows(
