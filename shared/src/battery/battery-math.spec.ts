@@ -18,6 +18,9 @@ describe('battery math', () => {
   it('makes a current at the rated rate its own effective current', () => {
     expect(peukertEffectiveCurrent(100, 20, 5, 1.25)).toBeCloseTo(5, 9);
     expect(peukertEffectiveCurrent(100, 20, 10, 1.25)).toBeGreaterThan(10);
+    // Below the rated 5 A the floor holds: 2 A drains as 2 A, not the 1.6 A the bare law would give.
+    expect(peukertEffectiveCurrent(100, 20, 2, 1.25)).toBe(2);
+    expect(peukertEffectiveCurrent(100, 20, -2, 1.25)).toBe(2);
   });
 
   it('blocks LiFePO4 charging below freezing', () => {

@@ -28,7 +28,12 @@ export function peukertRuntimeHours(
   return ratedHours * Math.pow(capacityAh / (current * ratedHours), exponent);
 }
 
-/** The current that, drawn at the rated rate, would drain the battery as fast as `current` does. */
+/**
+ * The current that, drawn at the rated rate, would drain the battery as fast as `current` does. Peukert's law
+ * describes the capacity lost at rates above the rated one; below it the law would promise more than the rated
+ * capacity, which cells do not give back (common practice: the effective current is never less than the current
+ * drawn). Without that floor a light load would count more amp-hours out than were put in.
+ */
 export function peukertEffectiveCurrent(
   capacityAh: number,
   ratedHours: number,
@@ -36,7 +41,9 @@ export function peukertEffectiveCurrent(
   exponent: number,
 ): number {
   const ratedCurrent = capacityAh / ratedHours;
-  return ratedCurrent * Math.pow(Math.abs(current) / ratedCurrent, exponent);
+  const drawn = Math.abs(current);
+  if (drawn <= ratedCurrent) return drawn;
+  return ratedCurrent * Math.pow(drawn / ratedCurrent, exponent);
 }
 
 /** Charge or discharge rate as a multiple of capacity (C-rate). */
