@@ -16,6 +16,8 @@ const MODELLED_TABLES = [
   'systems',
   'grants',
   'devices',
+  'alert_events',
+  'alert_notices',
 ];
 
 // The schema comes only from the migrations; the models describe it. This holds the two together: every

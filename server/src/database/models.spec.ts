@@ -89,4 +89,16 @@ describe('initModels', () => {
     const deviceActive = Device.options.scopes?.active as { where: Record<string, unknown> };
     expect(deviceActive.where).toEqual({ revokedAt: null });
   });
+
+  it('keeps an alert active until it ends, and its notices on the database clock', () => {
+    const { SystemAlert, AlertNotice } = initModels(offline());
+    expect([SystemAlert, AlertNotice].map((model) => model.getTableName())).toEqual([
+      'alert_events',
+      'alert_notices',
+    ]);
+    const active = SystemAlert.options.scopes?.active as { where: Record<string, unknown> };
+    expect(active.where).toEqual({ endedAt: null });
+    expect(Object.keys(SystemAlert.getAttributes())).not.toContain('createdAt');
+    expect((AlertNotice.getAttributes().sentAt.defaultValue as { fn: string }).fn).toBe('now');
+  });
 });

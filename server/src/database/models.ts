@@ -11,6 +11,7 @@ import { defineInstallRegisterModels } from '../install-register/install-registe
 import { defineSystemModels } from '../systems/system-model';
 import { defineGrantModels } from '../access/grant-model';
 import { defineDeviceModels } from '../devices/device-model';
+import { defineAlertModels } from '../alerts/alert-models';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -23,6 +24,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineSystemModels(sequelize),
     ...defineGrantModels(sequelize),
     ...defineDeviceModels(sequelize),
+    ...defineAlertModels(sequelize),
   };
   const {
     Company,
@@ -64,6 +66,13 @@ function defineModels(sequelize: Sequelize) {
   AccessGrant.belongsTo(User, { as: 'granteeUser', foreignKey: 'granteeUserId' });
   System.hasMany(Device, { as: 'devices', foreignKey: 'systemId' });
   Device.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  const { SystemAlert, AlertNotice } = models;
+  System.hasMany(SystemAlert, { as: 'alerts', foreignKey: 'systemId' });
+  SystemAlert.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  SystemAlert.belongsTo(User, { as: 'acknowledger', foreignKey: 'acknowledgedBy' });
+  SystemAlert.hasMany(AlertNotice, { as: 'notices', foreignKey: 'alertId' });
+  AlertNotice.belongsTo(SystemAlert, { as: 'alert', foreignKey: 'alertId' });
+  AlertNotice.belongsTo(User, { as: 'recipient', foreignKey: 'userId' });
   return models;
 }
 
