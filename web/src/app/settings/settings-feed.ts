@@ -1,17 +1,12 @@
 import type { SystemSettings } from '@cellwarden/shared';
-import { Observable, catchError, map, of, startWith } from 'rxjs';
-import { ApiProblem, apiProblem } from '../core/api-error';
+import type { Observable } from 'rxjs';
+import { LoadState, dataFailure, toLoadState } from '../core/load-state';
 import { SettingsApi } from '../core/settings-api';
 
-/** Loading, failed, or the settings. */
-export type SettingsLoad =
-  { phase: 'loading' } | { phase: 'error'; problem: ApiProblem } | { phase: 'ready'; value: SystemSettings };
-
 /** One system's settings, starting with 'loading'. */
-export function settingsLoad(api: SettingsApi, systemId: string): Observable<SettingsLoad> {
-  return api.settings(systemId).pipe(
-    map((value): SettingsLoad => ({ phase: 'ready', value })),
-    catchError((error: unknown) => of<SettingsLoad>({ phase: 'error', problem: apiProblem(error) })),
-    startWith<SettingsLoad>({ phase: 'loading' }),
+export function settingsLoad(api: SettingsApi, systemId: string): Observable<LoadState<SystemSettings>> {
+  return toLoadState(
+    api.settings(systemId),
+    dataFailure('The settings could not be loaded. Reload the page to try again.'),
   );
 }

@@ -25,7 +25,8 @@ import type { SystemSettings } from '@cellwarden/shared';
 import { switchMap } from 'rxjs';
 import { AccessApi } from '../core/access-api';
 import { Api } from '../core/api';
-import { ApiProblem, apiProblem, loadFailureText } from '../core/api-error';
+import { ApiProblem, apiProblem } from '../core/api-error';
+import { loadError } from '../core/load-state';
 import { configureRight, readOnlyReason, rightsLoad } from '../core/configure-right';
 import { formatInstant } from '../core/date-time';
 import { Preferences } from '../core/preferences';
@@ -74,7 +75,7 @@ export class Settings {
   protected readonly load = toSignal(
     toObservable(this.id).pipe(switchMap((id) => settingsLoad(this.api, id))),
     {
-      initialValue: { phase: 'loading' as const },
+      initialValue: { status: 'loading' as const },
     },
   );
   private readonly rights = toSignal(
@@ -100,12 +101,7 @@ export class Settings {
       (ms) => formatInstant(ms, 'dateTime', this.locale),
     ),
   );
-  protected readonly loadProblem = computed(() => {
-    const load = this.load();
-    return load.phase === 'error'
-      ? loadFailureText(load.problem, 'The settings could not be loaded. Reload the page to try again.')
-      : null;
-  });
+  protected readonly loadProblem = computed(() => loadError(this.load()));
   protected readonly problem = signal<ApiProblem | null>(null);
   protected readonly saved = signal(false);
   protected readonly overTemperatureRange = computed(() => {
@@ -116,7 +112,7 @@ export class Settings {
   });
   protected readonly defaults = computed(() => {
     const load = this.load();
-    const defaults = load.phase === 'ready' ? load.value.thresholdDefaults : undefined;
+    const defaults = load.status === 'loaded' ? load.value.thresholdDefaults : undefined;
     if (!defaults) return null;
     return {
       ...defaults,
@@ -129,7 +125,7 @@ export class Settings {
   constructor() {
     effect(() => {
       const load = this.load();
-      if (load.phase === 'ready') untracked(() => this.fill(load.value));
+      if (load.status === 'loaded') untracked(() => this.fill(load.value));
     });
     effect(() => this.convertTemperature(this.unit()));
     effect(() => {
@@ -155,7 +151,7 @@ export class Settings {
 
   protected discard(): void {
     const load = this.load();
-    if (load.phase === 'ready') this.fill(load.value);
+    if (load.status === 'loaded') this.fill(load.value);
   }
 
   private fill(settings: SystemSettings): void {
