@@ -1,25 +1,22 @@
 import { Signal } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
 import type { SystemStatus, SystemSummary } from '@cellwarden/shared';
-import { EMPTY, Observable, catchError, from, map, mergeMap, of, scan, startWith, switchMap } from 'rxjs';
+import { EMPTY, Observable, catchError, from, mergeMap, scan, switchMap } from 'rxjs';
 import { Api } from '../core/api';
-import { ApiProblem, apiProblem } from '../core/api-error';
+import { LoadState, toLoadState } from '../core/load-state';
 
 /** Loading, failed, or the systems. */
-export type FleetLoad =
-  | { status: 'loading' }
-  | { status: 'error'; problem: ApiProblem }
-  | { status: 'loaded'; systems: SystemSummary[] };
+export type FleetLoad = LoadState<SystemSummary[]>;
 
 // Statuses are fetched a few at a time so a large fleet does not flood the server.
 const STATUS_CONCURRENCY = 4;
 
 /** The systems the user may see, starting with 'loading'. */
 export function fleetLoad(api: Api): Observable<FleetLoad> {
-  return api.systems().pipe(
-    map((systems): FleetLoad => ({ status: 'loaded', systems })),
-    catchError((error: unknown) => of<FleetLoad>({ status: 'error', problem: apiProblem(error) })),
-    startWith<FleetLoad>({ status: 'loading' }),
+  // Whatever the cause, the list says the same (the connection is the usual one).
+  return toLoadState(
+    api.systems(),
+    () => 'The systems could not be loaded. Check the connection and reload the page.',
   );
 }
 
@@ -28,7 +25,7 @@ export function statusesOf(api: Api, load: Signal<FleetLoad>): Observable<Map<st
   return toObservable(load).pipe(
     switchMap((state) => {
       if (state.status !== 'loaded') return EMPTY;
-      return from(state.systems).pipe(
+      return from(state.value).pipe(
         mergeMap((s) => api.status(s.id).pipe(catchError(() => EMPTY)), STATUS_CONCURRENCY),
         scan(
           (statuses, status) => new Map(statuses).set(status.systemId, status),

@@ -14,6 +14,7 @@ import { RouterLink } from '@angular/router';
 import type { SystemStatus } from '@cellwarden/shared';
 import { map } from 'rxjs';
 import { Api } from '../core/api';
+import { loadError } from '../core/load-state';
 import { Auth } from '../core/auth';
 import { injectNow } from '../core/now';
 import { FleetRow, fleetSortValue, matchesSearch, toFleetRow } from './fleet-row';
@@ -60,11 +61,12 @@ export class Systems {
   protected readonly sort = signal<Sort>({ active: 'flags', direction: 'desc' });
   protected readonly columns = ['name', 'lastSeen', 'stateOfCharge', 'voltage', 'flags'];
 
+  protected readonly problem = computed(() => loadError(this.state()));
   protected readonly rows = computed(() => {
     const state = this.state();
     if (state.status !== 'loaded') return [];
     const statuses = this.statuses();
-    return state.systems.map((s) => toFleetRow(s, statuses.get(s.id) ?? null, this.now()));
+    return state.value.map((s) => toFleetRow(s, statuses.get(s.id) ?? null, this.now()));
   });
   protected readonly visibleRows = computed(() =>
     sortRows(
