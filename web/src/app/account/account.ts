@@ -5,14 +5,15 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { serverErrorOf, showServerError } from '../core/api-error';
 import { Auth } from '../core/auth';
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../core/password-rules';
+import { PasswordFields } from '../core/password-fields/password-fields';
+import { passwordPair, passwordsMatch } from '../core/password-rules';
 import { AccountApi } from './account-api';
 
 /** The person's own account: who they are signed in as, and a new password that ends their other sign-ins. */
 @Component({
   selector: 'cw-account',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule],
+  imports: [PasswordFields, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule],
   templateUrl: './account.html',
   styleUrl: './account.scss',
 })
@@ -21,8 +22,6 @@ export class Account {
   private readonly fb = inject(FormBuilder);
   protected readonly user = inject(Auth).currentUser;
 
-  protected readonly minLength = PASSWORD_MIN;
-  protected readonly maxBytes = PASSWORD_MAX_BYTES;
   protected readonly form = this.fb.nonNullable.group(
     { currentPassword: this.fb.nonNullable.control('', Validators.required), ...passwordPair(this.fb) },
     { validators: passwordsMatch },

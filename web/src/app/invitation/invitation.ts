@@ -10,7 +10,8 @@ import { Router, RouterLink } from '@angular/router';
 import type { InvitationPreview } from '@cellwarden/shared';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import { Auth } from '../core/auth';
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../core/password-rules';
+import { PasswordFields } from '../core/password-fields/password-fields';
+import { passwordPair, passwordsMatch } from '../core/password-rules';
 import { serverErrorOf, showServerError } from '../core/api-error';
 import { InvitationApi } from './invitation-api';
 import { roleLabel } from '../core/role-label';
@@ -25,6 +26,7 @@ type PreviewState =
   selector: 'cw-invitation',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    PasswordFields,
     ReactiveFormsModule,
     MatFormFieldModule,
     MatInputModule,
@@ -45,8 +47,6 @@ export class Invitation {
   /** The token from the invitation e-mail. */
   readonly token = input.required<string>();
 
-  protected readonly minLength = PASSWORD_MIN;
-  protected readonly maxBytes = PASSWORD_MAX_BYTES;
   protected readonly roleLabel = roleLabel;
   protected readonly preview = toSignal(
     toObservable(this.token).pipe(

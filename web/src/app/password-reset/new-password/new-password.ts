@@ -5,14 +5,22 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
 import { serverErrorOf, showServerError } from '../../core/api-error';
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN, passwordPair, passwordsMatch } from '../../core/password-rules';
+import { PasswordFields } from '../../core/password-fields/password-fields';
+import { passwordPair, passwordsMatch } from '../../core/password-rules';
 import { ResetApi } from '../reset-api';
 
 /** Sets a new password with the token from the reset e-mail (route /password-reset/:token). */
 @Component({
   selector: 'cw-new-password',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, RouterLink],
+  imports: [
+    PasswordFields,
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    RouterLink,
+  ],
   templateUrl: './new-password.html',
   styleUrl: '../password-reset.scss',
 })
@@ -23,8 +31,6 @@ export class NewPassword {
   /** The token from the link. */
   readonly token = input.required<string>();
 
-  protected readonly minLength = PASSWORD_MIN;
-  protected readonly maxBytes = PASSWORD_MAX_BYTES;
   protected readonly form = this.fb.nonNullable.group(passwordPair(this.fb), { validators: passwordsMatch });
   protected readonly done = signal(false);
   protected readonly submitting = signal(false);
