@@ -5,14 +5,9 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
-import { CapturedMail, MailOutboxApi } from './mail-outbox-api';
-
-type OutboxState =
-  | { status: 'loading' }
-  | { status: 'off' }
-  | { status: 'error' }
-  | { status: 'loaded'; address: string; messages: CapturedMail[] };
+import { switchMap } from 'rxjs';
+import { LoadState, loadError, loadedOr, toLoadState } from '../core/load-state';
+import { MailOutboxApi, OwnCapturedMail } from './mail-outbox-api';
 
 /** The local SMTP catcher's copy of the signed-in person's own mail (invitations, resets, alerts, records). */
 @Component({
@@ -29,28 +24,28 @@ export class MailOutbox {
   protected readonly state = toSignal(
     toObservable(this.reloads).pipe(
       switchMap(() =>
-        this.api.ownMail().pipe(
-          // Without the catcher (the normal production case) mail goes out for real and nothing is kept.
-          map((own): OutboxState =>
-            own.catcher
-              ? { status: 'loaded', address: own.address, messages: own.messages }
-              : { status: 'off' },
-          ),
-          catchError(() => of<OutboxState>({ status: 'error' })),
-          startWith<OutboxState>({ status: 'loading' }),
+        toLoadState(
+          this.api.ownMail(),
+          () => 'Your captured mail could not be loaded. Check the connection and reload.',
         ),
       ),
     ),
-    { initialValue: { status: 'loading' } as OutboxState },
+    { initialValue: { status: 'loading' } as LoadState<OwnCapturedMail> },
   );
-  protected readonly address = computed(() => {
+  /** What the page shows; without the catcher (the normal production case) mail goes out for real and nothing is kept. */
+  protected readonly view = computed(() => {
     const state = this.state();
-    return state.status === 'loaded' ? state.address : '';
+    return state.status === 'loaded' && !state.value.catcher ? 'off' : state.status;
   });
-  protected readonly messages = computed(() => {
-    const state = this.state();
-    return state.status === 'loaded' ? [...state.messages].sort((a, b) => b.receivedAt - a.receivedAt) : [];
+  protected readonly problem = computed(() => loadError(this.state()));
+  private readonly ownMail = computed(() => {
+    const own = loadedOr(this.state(), null);
+    return own?.catcher ? own : null;
   });
+  protected readonly address = computed(() => this.ownMail()?.address ?? '');
+  protected readonly messages = computed(() =>
+    [...(this.ownMail()?.messages ?? [])].sort((a, b) => b.receivedAt - a.receivedAt),
+  );
 
   protected reload(): void {
     this.reloads.update((n) => n + 1);
