@@ -15,8 +15,9 @@ import type { ReadingRow } from '../telemetry/readings-repository';
  *    (runtime, alerts) as soon as that reading is done, not after the whole batch: an alert stored for one
  *    reading must not hold up the rest. The analytics keep the order within each system, so the live stream
  *    does too.
- * 3. Last, the monitors' `last_seen_at` is moved forward once per device (the latest measured time in the
- *    batch); a failure there is logged and never touches the readings, which are already stored.
+ * 3. Last, each monitor's newest measured time in the batch goes to `devices` once per device (the composition
+ *    root passes the seen throttle, which writes `last_seen_at`); a failure there is logged and never touches
+ *    the readings, which are already stored.
  */
 export function createStoredReadingsFanout(deps: {
   checks: Pick<CommissioningService, 'onReading'>;
