@@ -18,6 +18,9 @@ const MODELLED_TABLES = [
   'devices',
   'alert_events',
   'alert_notices',
+  'commissioning_checks',
+  'uploads',
+  'energy_budgets',
 ];
 
 // The schema comes only from the migrations; the models describe it. This holds the two together: every

@@ -12,6 +12,7 @@ import { defineSystemModels } from '../systems/system-model';
 import { defineGrantModels } from '../access/grant-model';
 import { defineDeviceModels } from '../devices/device-model';
 import { defineAlertModels } from '../alerts/alert-models';
+import { defineInstallerModels } from '../installer/installer-models';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -25,6 +26,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineGrantModels(sequelize),
     ...defineDeviceModels(sequelize),
     ...defineAlertModels(sequelize),
+    ...defineInstallerModels(sequelize),
   };
   const {
     Company,
@@ -73,6 +75,16 @@ function defineModels(sequelize: Sequelize) {
   SystemAlert.hasMany(AlertNotice, { as: 'notices', foreignKey: 'alertId' });
   AlertNotice.belongsTo(SystemAlert, { as: 'alert', foreignKey: 'alertId' });
   AlertNotice.belongsTo(User, { as: 'recipient', foreignKey: 'userId' });
+  const { CommissioningRun, Upload, SavedBudget } = models;
+  System.hasMany(CommissioningRun, { as: 'commissioningChecks', foreignKey: 'systemId' });
+  CommissioningRun.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  CommissioningRun.belongsTo(User, { as: 'installer', foreignKey: 'installerId' });
+  System.hasMany(Upload, { as: 'uploads', foreignKey: 'systemId' });
+  Upload.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  Upload.belongsTo(User, { as: 'uploader', foreignKey: 'uploadedBy' });
+  System.hasMany(SavedBudget, { as: 'energyBudgets', foreignKey: 'systemId' });
+  SavedBudget.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  SavedBudget.belongsTo(User, { as: 'author', foreignKey: 'createdBy' });
   return models;
 }
 

@@ -1,21 +1,35 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { fn, type Sequelize } from 'sequelize';
 import type { CommissioningCheck, CommissioningCheckRequest } from '@cellwarden/shared';
-import { epochMs as ms } from '../database/sql-values';
-
-const SELECT_CHECK = `SELECT c.id, c.system_id AS "systemId", c.request->>'sourceId' AS "sourceId",
-  (c.request->>'ratedCurrentA')::float8 AS "ratedCurrentA",
-  coalesce((c.request->>'tolerancePercent')::float8, 10) AS "tolerancePercent",
-  c.status, c.progress, ${ms('c.started_at')} AS "startedAt", ${ms('c.finished_at')} AS "finishedAt",
-  json_build_object('id', u.id, 'displayName', u.display_name) AS installer, c.result, c.request
-  FROM commissioning_checks c JOIN users u ON u.id = c.installer_id`;
+import { initModels } from '../database/models';
+import type { CommissioningRun } from './installer-models';
 
 /** A stored check with the request it was started with. */
 export type StoredCheck = CommissioningCheck & { request: CommissioningCheckRequest };
 
+// The API's view of a run: the source, rating and tolerance it was asked for come from its request (10 % when
+// the request named none).
+function toStoredCheck(row: CommissioningRun): StoredCheck {
+  const { request, installer } = row;
+  return {
+    id: row.id,
+    systemId: row.systemId,
+    sourceId: request.sourceId,
+    ratedCurrentA: request.ratedCurrentA,
+    tolerancePercent: request.tolerancePercent ?? 10,
+    status: row.status,
+    progress: row.progress as CommissioningCheck['progress'],
+    startedAt: row.startedAt.getTime(),
+    finishedAt: row.finishedAt?.getTime() ?? null,
+    installer: { id: installer!.id, displayName: installer!.displayName },
+    result: row.result as CommissioningCheck['result'],
+    request,
+  };
+}
+
 /** Data access for commissioning checks. */
 export function createCommissioningRepository(sequelize: Sequelize) {
-  const select = (where: string, replacements: Record<string, unknown>) =>
-    sequelize.query<StoredCheck>(`${SELECT_CHECK} ${where}`, { replacements, type: QueryTypes.SELECT });
+  const { CommissioningRun, User } = initModels(sequelize);
+  const installer = { model: User, as: 'installer', attributes: ['id', 'displayName'], required: true };
   return {
     async insert(
       systemId: string,
@@ -23,28 +37,14 @@ export function createCommissioningRepository(sequelize: Sequelize) {
       request: CommissioningCheckRequest,
       progress: object,
     ) {
-      const [row] = await sequelize.query<{ id: string }>(
-        `INSERT INTO commissioning_checks (system_id, installer_id, request, status, progress)
-         VALUES (:systemId, :installerId, :request::jsonb, 'running', :progress::jsonb) RETURNING id`,
-        {
-          replacements: {
-            systemId,
-            installerId,
-            request: JSON.stringify(request),
-            progress: JSON.stringify(progress),
-          },
-          type: QueryTypes.SELECT,
-        },
+      const row = await CommissioningRun.create(
+        { systemId, installerId, request, status: 'running', progress },
+        { returning: ['id'] },
       );
       return row.id;
     },
     async saveProgress(id: string, progress: object) {
-      await sequelize.query(
-        `UPDATE commissioning_checks SET progress = :progress::jsonb WHERE id = :id AND status = 'running'`,
-        {
-          replacements: { id, progress: JSON.stringify(progress) },
-        },
-      );
+      await CommissioningRun.scope('running').update({ progress }, { where: { id } });
     },
     async finish(
       id: string,
@@ -52,29 +52,30 @@ export function createCommissioningRepository(sequelize: Sequelize) {
       progress: object,
       result: object | null,
     ) {
-      await sequelize.query(
-        `UPDATE commissioning_checks SET status = :status, progress = :progress::jsonb, result = :result::jsonb,
-           finished_at = now() WHERE id = :id AND status = 'running'`,
-        {
-          replacements: {
-            id,
-            status,
-            progress: JSON.stringify(progress),
-            result: result && JSON.stringify(result),
-          },
-        },
+      await CommissioningRun.scope('running').update(
+        { status, progress, result, finishedAt: fn('now') },
+        { where: { id } },
       );
     },
     /** Checks left running by a previous process cannot finish: they are marked abandoned. */
     async abandonRunning() {
-      await sequelize.query(
-        `UPDATE commissioning_checks SET status = 'abandoned', finished_at = now() WHERE status = 'running'`,
+      await CommissioningRun.scope('running').update(
+        { status: 'abandoned', finishedAt: fn('now') },
+        { where: {} },
       );
     },
-    list: (systemId: string) =>
-      select('WHERE c.system_id = :systemId ORDER BY c.started_at DESC LIMIT 200', { systemId }),
+    async list(systemId: string): Promise<StoredCheck[]> {
+      const rows = await CommissioningRun.findAll({
+        where: { systemId },
+        include: [installer],
+        order: [['startedAt', 'DESC']],
+        limit: 200,
+      });
+      return rows.map(toStoredCheck);
+    },
     async find(systemId: string, id: string): Promise<StoredCheck | undefined> {
-      return (await select('WHERE c.system_id = :systemId AND c.id = :id', { systemId, id }))[0];
+      const row = await CommissioningRun.findOne({ where: { systemId, id }, include: [installer] });
+      return row ? toStoredCheck(row) : undefined;
     },
   };
 }

@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import {
   compareBudgetWithActual,
   energyBudget,
@@ -11,10 +11,9 @@ import { notFound } from '../errors/app-error';
 import type { SystemsService } from '../systems/systems-service';
 import type { ReadingsRepository } from '../telemetry/readings-repository';
 import { isUuid } from '../database/sql-values';
+import { createEnergyBudgetsRepository } from './energy-budgets-repository';
 
 const DAY_MS = 24 * 3600_000;
-const SELECT_BUDGET = `SELECT id, name, budget, (extract(epoch FROM created_at) * 1000)::float8 AS "createdAt",
-  (extract(epoch FROM updated_at) * 1000)::float8 AS "updatedAt" FROM energy_budgets`;
 
 /** Saved energy budgets per system, and how one compares with what the system actually did. */
 export function createEnergyBudgetsService(deps: {
@@ -23,22 +22,17 @@ export function createEnergyBudgetsService(deps: {
   readings: ReadingsRepository;
   now: () => number;
 }) {
-  const select = (where: string, replacements: Record<string, unknown>) =>
-    deps.sequelize.query<SavedEnergyBudget>(`${SELECT_BUDGET} ${where}`, {
-      replacements,
-      type: QueryTypes.SELECT,
-    });
-  const find = async (systemId: string, budgetId: string) => {
-    const [budget] = isUuid(budgetId)
-      ? await select('WHERE system_id = :systemId AND id = :budgetId', { systemId, budgetId })
-      : [];
+  // The store is built here from the connection the composition root gives this service.
+  const budgets = createEnergyBudgetsRepository(deps.sequelize);
+  const find = async (systemId: string, budgetId: string): Promise<SavedEnergyBudget> => {
+    const budget = isUuid(budgetId) ? await budgets.find(systemId, budgetId) : undefined;
     if (!budget) throw notFound('Energy budget');
     return budget;
   };
   return {
     async list(user: PublicUser, systemId: string) {
       const system = await deps.systems.getFor(user, systemId, 'view');
-      return select('WHERE system_id = :systemId ORDER BY updated_at DESC', { systemId: system.id });
+      return budgets.list(system.id);
     },
 
     async save(
@@ -50,35 +44,18 @@ export function createEnergyBudgetsService(deps: {
     ) {
       const system = await deps.systems.getFor(user, systemId, 'configure');
       energyBudget(budget); // refuses an impossible budget, naming its field
-      const replacements = {
-        systemId: system.id,
-        name,
-        budget: JSON.stringify(budget),
-        userId: user.id,
-        budgetId,
-      };
       if (budgetId) {
         await find(system.id, budgetId);
-        await deps.sequelize.query(
-          `UPDATE energy_budgets SET name = :name, budget = :budget::jsonb, updated_at = now() WHERE id = :budgetId`,
-          { replacements },
-        );
+        await budgets.update(budgetId, name, budget);
         return find(system.id, budgetId);
       }
-      const [row] = await deps.sequelize.query<{ id: string }>(
-        `INSERT INTO energy_budgets (system_id, name, budget, created_by) VALUES (:systemId, :name, :budget::jsonb, :userId)
-         RETURNING id`,
-        { replacements, type: QueryTypes.SELECT },
-      );
-      return find(system.id, row.id);
+      return find(system.id, await budgets.insert(system.id, name, budget, user.id));
     },
 
     async remove(user: PublicUser, systemId: string, budgetId: string) {
       const system = await deps.systems.getFor(user, systemId, 'configure');
       await find(system.id, budgetId);
-      await deps.sequelize.query('DELETE FROM energy_budgets WHERE id = :budgetId', {
-        replacements: { budgetId },
-      });
+      await budgets.remove(budgetId);
     },
 
     /** The budget against the measured energy of the last `days` whole days, from the hour rollups. */

@@ -1,33 +1,57 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { UploadListing } from '@cellwarden/shared';
+import { initModels } from '../database/models';
+import type { Upload } from './installer-models';
 
 /** An upload as stored, with the file's name on disk. */
 export type StoredUploadRecord = UploadListing & { storedName: string };
 
-const SELECT_UPLOAD = `SELECT id, kind, file_name AS "fileName", content_type AS "contentType", bytes,
-  (extract(epoch FROM uploaded_at) * 1000)::float8 AS "uploadedAt", caption, stored_name AS "storedName" FROM uploads`;
+const toRecord = (row: Upload): StoredUploadRecord => ({
+  id: row.id,
+  kind: row.kind,
+  fileName: row.fileName,
+  contentType: row.contentType,
+  bytes: row.bytes,
+  uploadedAt: row.uploadedAt.getTime(),
+  caption: row.caption,
+  storedName: row.storedName,
+});
+
+const ATTRIBUTES = [
+  'id',
+  'kind',
+  'fileName',
+  'contentType',
+  'bytes',
+  'uploadedAt',
+  'caption',
+  'storedName',
+] as const;
 
 /** Data access for uploaded photos and logs. */
 export function createUploadsRepository(sequelize: Sequelize) {
-  const select = (where: string, replacements: Record<string, unknown>) =>
-    sequelize.query<StoredUploadRecord>(`${SELECT_UPLOAD} ${where}`, {
-      replacements,
-      type: QueryTypes.SELECT,
-    });
+  const { Upload } = initModels(sequelize);
   return {
     async insert(
       upload: Omit<StoredUploadRecord, 'id' | 'uploadedAt'> & { systemId: string; uploadedBy: string },
     ) {
-      const [row] = await sequelize.query<{ id: string }>(
-        `INSERT INTO uploads (system_id, uploaded_by, kind, file_name, stored_name, content_type, bytes, caption)
-         VALUES (:systemId, :uploadedBy, :kind, :fileName, :storedName, :contentType, :bytes, :caption) RETURNING id`,
-        { replacements: upload, type: QueryTypes.SELECT },
-      );
-      return (await select('WHERE id = :id', { id: row.id }))[0];
+      const { id } = await Upload.create(upload, { returning: ['id'] });
+      // Read back as stored (uploaded_at is the database's now()); the row was just made, so it is there.
+      const row = await Upload.findByPk(id, { attributes: [...ATTRIBUTES], raw: true, rejectOnEmpty: true });
+      return toRecord(row);
     },
-    list: (systemId: string) => select('WHERE system_id = :systemId ORDER BY uploaded_at DESC', { systemId }),
+    async list(systemId: string) {
+      const rows = await Upload.findAll({
+        where: { systemId },
+        attributes: [...ATTRIBUTES],
+        order: [['uploadedAt', 'DESC']],
+        raw: true,
+      });
+      return rows.map(toRecord);
+    },
     async find(systemId: string, id: string) {
-      return (await select('WHERE system_id = :systemId AND id = :id', { systemId, id }))[0];
+      const row = await Upload.findOne({ where: { systemId, id }, attributes: [...ATTRIBUTES], raw: true });
+      return row ? toRecord(row) : undefined;
     },
   };
 }
