@@ -13,9 +13,10 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { InstallRegister as Register, RegisterCircuit, RegisterComponent } from '@cellwarden/shared';
-import { catchError, combineLatest, map, of, startWith, switchMap } from 'rxjs';
+import { catchError, combineLatest, of, switchMap } from 'rxjs';
 import { Api } from '../core/api';
 import { apiProblem } from '../core/api-error';
+import { LoadState, loadError, loadedOr, toLoadState } from '../core/load-state';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
 import { formatTemperature } from '../core/temperature-unit';
@@ -25,9 +26,6 @@ import { InstallRegisterApi } from './install-register-api';
 import { componentSummary, conductorLabel, fuseDistanceLabel } from './register-words';
 import { MeasuredPanel } from './measured-panel/measured-panel';
 import { RecordPicker } from './record-picker/record-picker';
-
-type Load =
-  { phase: 'loading' } | { phase: 'error'; message: string } | { phase: 'ready'; register: Register };
 
 /** Route systems/:id/install: the install register, its verdicts, design against measured, and the record. */
 @Component({
@@ -61,14 +59,11 @@ export class InstallRegister {
   protected readonly load = toSignal(
     combineLatest([toObservable(this.id), toObservable(this.revision)]).pipe(
       switchMap(([id]) =>
-        this.api.register(id).pipe(
-          map((register): Load => ({ phase: 'ready', register })),
-          catchError((error: unknown) => of<Load>({ phase: 'error', message: apiProblem(error).message })),
-          startWith<Load>({ phase: 'loading' }),
-        ),
+        // The server's own message, whatever it is.
+        toLoadState(this.api.register(id), (error) => apiProblem(error).message),
       ),
     ),
-    { initialValue: { phase: 'loading' } as Load },
+    { initialValue: { status: 'loading' } as LoadState<Register> },
   );
   private readonly system = toSignal(
     toObservable(this.id).pipe(
@@ -82,10 +77,8 @@ export class InstallRegister {
     return allowed === undefined || allowed.includes('configure');
   });
   protected readonly systemName = computed(() => this.system()?.name ?? null);
-  protected readonly register = computed(() => {
-    const load = this.load();
-    return load.phase === 'ready' ? load.register : null;
-  });
+  protected readonly register = computed(() => loadedOr(this.load(), null));
+  protected readonly problem = computed(() => loadError(this.load()));
   protected readonly editingComponent = signal<RegisterComponent | null>(null);
   protected readonly editingCircuit = signal<RegisterCircuit | null>(null);
   protected readonly notice = signal<string | null>(null);

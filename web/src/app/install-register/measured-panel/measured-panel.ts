@@ -5,16 +5,12 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { CircuitDesignVsMeasured, RatingComparison } from '@cellwarden/shared';
-import { catchError, combineLatest, map, of, startWith, switchMap } from 'rxjs';
+import { combineLatest, switchMap } from 'rxjs';
 import { apiProblem } from '../../core/api-error';
+import { LoadState, toLoadState } from '../../core/load-state';
 import { Preferences } from '../../core/preferences';
 import { InstallRegisterApi } from '../install-register-api';
 import { measuredSentence } from './measured-sentence';
-
-type Measured =
-  | { phase: 'loading' }
-  | { phase: 'error'; message: string }
-  | { phase: 'ready'; circuits: CircuitDesignVsMeasured[] };
 
 const RATING_NAMES: Record<RatingComparison['rating'], string> = {
   fuse: 'Fuse or breaker',
@@ -44,16 +40,10 @@ export class MeasuredPanel {
   protected readonly measured = toSignal(
     combineLatest([toObservable(this.systemId), toObservable(this.days), toObservable(this.revision)]).pipe(
       switchMap(([id, days]) =>
-        this.api.measured(id, days).pipe(
-          map((circuits): Measured => ({ phase: 'ready', circuits })),
-          catchError((error: unknown) =>
-            of<Measured>({ phase: 'error', message: apiProblem(error).message }),
-          ),
-          startWith<Measured>({ phase: 'loading' }),
-        ),
+        toLoadState(this.api.measured(id, days), (error) => apiProblem(error).message),
       ),
     ),
-    { initialValue: { phase: 'loading' } as Measured },
+    { initialValue: { status: 'loading' } as LoadState<CircuitDesignVsMeasured[]> },
   );
 
   protected sentence(circuit: CircuitDesignVsMeasured): string {
