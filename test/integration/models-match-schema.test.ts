@@ -21,6 +21,8 @@ const MODELLED_TABLES = [
   'commissioning_checks',
   'uploads',
   'energy_budgets',
+  'access_share_codes',
+  'access_requests',
 ];
 
 // The schema comes only from the migrations; the models describe it. This holds the two together: every

@@ -1,5 +1,6 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { Op, QueryTypes, col, fn, literal, where, type Sequelize } from 'sequelize';
 import type { IncomingAccessRequest, OutgoingAccessRequest } from '@cellwarden/shared';
+import { initModels } from '../database/models';
 
 /** A pending request as the service needs it to decide. */
 export interface PendingRequest {
@@ -9,77 +10,73 @@ export interface PendingRequest {
   requesterEmail: string;
 }
 
-const STATE = `CASE WHEN r.decision IS NOT NULL THEN r.decision
-  WHEN r.expires_at <= to_timestamp(:now / 1000.0) THEN 'expired' ELSE 'pending' END`;
 const MS = (column: string) => `(extract(epoch FROM ${column}) * 1000)::float8`;
+
+// An owner's pending requests, the newest per requester and system. SQL for DISTINCT ON (one row per pair,
+// chosen by created_at), which a model's finder does not say.
+const LIST_INCOMING_SQL = `SELECT * FROM (
+    SELECT DISTINCT ON (r.system_id, r.requester_id) r.id, r.system_id AS "systemId", s.name AS "systemName",
+      json_build_object('email', u.email, 'displayName', u.display_name, 'companyName', c.name) AS requester,
+      r.via, r.note, ${MS('r.created_at')} AS "createdAt", ${MS('r.expires_at')} AS "expiresAt"
+    FROM access_requests r JOIN systems s ON s.id = r.system_id JOIN users u ON u.id = r.requester_id
+    LEFT JOIN companies c ON c.id = r.requester_company_id
+    WHERE s.owner_id = :ownerId AND r.decision IS NULL AND r.expires_at > to_timestamp(:now / 1000.0)
+      AND (:systemId::uuid IS NULL OR r.system_id = :systemId::uuid)
+    ORDER BY r.system_id, r.requester_id, r.created_at DESC) newest
+  ORDER BY "createdAt" DESC`;
 
 /** Data access for share codes and access requests. */
 export function createAccessRequestsRepository(sequelize: Sequelize) {
-  const select = <T extends object>(sql: string, replacements: Record<string, unknown>) =>
-    sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+  const { ShareCode, AccessRequest, System, User } = initModels(sequelize);
   return {
     /** Stores a new code for a system and ends every earlier unused one: one live code per system. */
     async createShareCode(code: { systemId: string; codeHash: string; createdBy: string; expiresAt: Date }) {
       await sequelize.transaction(async (transaction) => {
-        await sequelize.query(
-          `UPDATE access_share_codes SET expires_at = least(expires_at, now())
-           WHERE system_id = :systemId AND used_at IS NULL`,
-          { replacements: code, transaction },
+        await ShareCode.update(
+          { expiresAt: literal('least(expires_at, now())') },
+          { where: { systemId: code.systemId, usedAt: null }, transaction },
         );
-        await sequelize.query(
-          `INSERT INTO access_share_codes (system_id, code_hash, created_by, expires_at)
-           VALUES (:systemId, :codeHash, :createdBy, :expiresAt)`,
-          { replacements: code, transaction },
-        );
+        await ShareCode.create(code, { transaction, returning: false });
       });
     },
 
     /** Uses a code once: the system it opens, or undefined when it is unknown, used or expired. */
     async claimShareCode(codeHash: string, userId: string, now: number): Promise<string | undefined> {
-      const [row] = await select<{ systemId: string }>(
-        `UPDATE access_share_codes SET used_at = now(), used_by = :userId
-         WHERE code_hash = :codeHash AND used_at IS NULL AND expires_at > to_timestamp(:now / 1000.0)
-         RETURNING system_id AS "systemId"`,
-        { codeHash, userId, now },
+      const [, rows] = await ShareCode.scope({ method: ['active', now] }).update(
+        { usedAt: fn('now'), usedBy: userId },
+        { where: { codeHash }, returning: true },
       );
-      return row?.systemId;
+      return rows[0]?.systemId;
     },
 
     /** The system of this owner by that name (trimmed, any case), or undefined. */
     async findByOwnerAndName(ownerEmail: string, systemName: string): Promise<string | undefined> {
-      const [row] = await select<{ id: string }>(
-        `SELECT s.id FROM systems s JOIN users u ON u.id = s.owner_id
-         WHERE u.email = :ownerEmail AND lower(s.name) = lower(:systemName) ORDER BY s.created_at LIMIT 1`,
-        { ownerEmail, systemName },
-      );
+      const row = await System.findOne({
+        where: where(fn('lower', col('System.name')), fn('lower', systemName)),
+        attributes: ['id'],
+        include: [{ model: User, as: 'owner', attributes: [], where: { email: ownerEmail }, required: true }],
+        order: [['createdAt', 'ASC']],
+      });
       return row?.id;
     },
 
     async ownerOf(systemId: string): Promise<{ email: string; systemName: string } | undefined> {
-      const [row] = await select<{ email: string; systemName: string }>(
-        `SELECT u.email, s.name AS "systemName" FROM systems s JOIN users u ON u.id = s.owner_id WHERE s.id = :systemId`,
-        { systemId },
-      );
-      return row;
+      const row = await System.findByPk(systemId, {
+        attributes: ['name'],
+        include: [{ model: User, as: 'owner', attributes: ['email'], required: true }],
+      });
+      return row?.owner ? { email: row.owner.email, systemName: row.name } : undefined;
     },
 
-    countSince: async (requesterId: string, since: number) =>
-      (
-        await select<{ n: number }>(
-          `SELECT count(*)::int AS n FROM access_requests
-           WHERE requester_id = :requesterId AND created_at > to_timestamp(:since / 1000.0)`,
-          { requesterId, since },
-        )
-      )[0].n,
+    countSince: (requesterId: string, since: number) =>
+      AccessRequest.count({ where: { requesterId, createdAt: { [Op.gt]: new Date(since) } } }),
 
     /** Whether this person already has a request waiting on this system (the owner is mailed once). */
     async hasPending(requesterId: string, systemId: string, now: number): Promise<boolean> {
-      const rows = await select(
-        `SELECT 1 FROM access_requests WHERE requester_id = :requesterId AND system_id = :systemId
-           AND decision IS NULL AND expires_at > to_timestamp(:now / 1000.0)`,
-        { requesterId, systemId, now },
+      return (
+        (await AccessRequest.scope({ method: ['active', now] }).count({ where: { requesterId, systemId } })) >
+        0
       );
-      return rows.length > 0;
     },
 
     async create(request: {
@@ -92,50 +89,51 @@ export function createAccessRequestsRepository(sequelize: Sequelize) {
       note: string;
       expiresAt: Date;
     }): Promise<string> {
-      const [row] = await select<{ id: string }>(
-        `INSERT INTO access_requests (requester_id, requester_company_id, via, owner_email, system_name, system_id, note, expires_at)
-         VALUES (:requesterId, :requesterCompanyId, :via, :ownerEmail, :systemName, :systemId, :note, :expiresAt)
-         RETURNING id`,
-        request,
-      );
+      const row = await AccessRequest.create(request, { returning: ['id'] });
       return row.id;
     },
 
     /** What the requester sees: only what they typed, and the state. */
-    listOutgoing: (requesterId: string, now: number, id?: string) =>
-      select<OutgoingAccessRequest>(
-        `SELECT r.id, r.via, r.owner_email AS "ownerEmail", r.system_name AS "systemName",
-           ${MS('r.created_at')} AS "createdAt", ${MS('r.expires_at')} AS "expiresAt", ${STATE} AS state
-         FROM access_requests r WHERE r.requester_id = :requesterId AND (:id::uuid IS NULL OR r.id = :id::uuid)
-         ORDER BY r.created_at DESC LIMIT 100`,
-        { requesterId, now, id: id ?? null },
-      ),
+    async listOutgoing(requesterId: string, now: number, id?: string): Promise<OutgoingAccessRequest[]> {
+      const rows = await AccessRequest.findAll({
+        where: id === undefined ? { requesterId } : { requesterId, id },
+        attributes: ['id', 'via', 'ownerEmail', 'systemName', 'createdAt', 'expiresAt', 'decision'],
+        order: [['createdAt', 'DESC']],
+        limit: 100,
+        raw: true,
+      });
+      return rows.map((row) => ({
+        id: row.id,
+        via: row.via,
+        ownerEmail: row.ownerEmail,
+        systemName: row.systemName,
+        createdAt: row.createdAt.getTime(),
+        expiresAt: row.expiresAt.getTime(),
+        state: row.decision ?? (row.expiresAt.getTime() <= now ? 'expired' : 'pending'),
+      }));
+    },
 
     /** Pending requests on systems this person owns (one per requester and system, the newest). */
     listIncoming: (ownerId: string, now: number, systemId: string | null) =>
-      select<IncomingAccessRequest>(
-        `SELECT * FROM (
-           SELECT DISTINCT ON (r.system_id, r.requester_id) r.id, r.system_id AS "systemId", s.name AS "systemName",
-             json_build_object('email', u.email, 'displayName', u.display_name, 'companyName', c.name) AS requester,
-             r.via, r.note, ${MS('r.created_at')} AS "createdAt", ${MS('r.expires_at')} AS "expiresAt"
-           FROM access_requests r JOIN systems s ON s.id = r.system_id JOIN users u ON u.id = r.requester_id
-           LEFT JOIN companies c ON c.id = r.requester_company_id
-           WHERE s.owner_id = :ownerId AND r.decision IS NULL AND r.expires_at > to_timestamp(:now / 1000.0)
-             AND (:systemId::uuid IS NULL OR r.system_id = :systemId::uuid)
-           ORDER BY r.system_id, r.requester_id, r.created_at DESC) newest
-         ORDER BY "createdAt" DESC`,
-        { ownerId, now, systemId },
-      ),
+      sequelize.query<IncomingAccessRequest>(LIST_INCOMING_SQL, {
+        replacements: { ownerId, now, systemId },
+        type: QueryTypes.SELECT,
+      }),
 
     async findPending(id: string, now: number): Promise<PendingRequest | undefined> {
-      const [row] = await select<PendingRequest>(
-        `SELECT r.id, r.system_id AS "systemId", r.requester_id AS "requesterId", u.email AS "requesterEmail"
-         FROM access_requests r JOIN users u ON u.id = r.requester_id
-         WHERE r.id = :id AND r.system_id IS NOT NULL AND r.decision IS NULL
-           AND r.expires_at > to_timestamp(:now / 1000.0)`,
-        { id, now },
-      );
-      return row;
+      const row = await AccessRequest.scope({ method: ['active', now] }).findOne({
+        where: { id, systemId: { [Op.ne]: null } },
+        attributes: ['id', 'systemId', 'requesterId'],
+        include: [{ model: User, as: 'requester', attributes: ['email'], required: true }],
+      });
+      return row
+        ? {
+            id: row.id,
+            systemId: row.systemId!,
+            requesterId: row.requesterId,
+            requesterEmail: row.requester!.email,
+          }
+        : undefined;
     },
 
     /**
@@ -143,18 +141,18 @@ export function createAccessRequestsRepository(sequelize: Sequelize) {
      * the ids answered now (none when someone answered first, so one approval makes one grant).
      */
     async decide(request: PendingRequest, decision: 'approved' | 'declined', decidedBy: string) {
-      const rows = await select<{ id: string }>(
-        `UPDATE access_requests SET decision = :decision, decided_at = now(), decided_by = :decidedBy
-         WHERE system_id = :systemId AND requester_id = :requesterId AND decision IS NULL RETURNING id`,
-        { systemId: request.systemId, requesterId: request.requesterId, decision, decidedBy },
+      const [, rows] = await AccessRequest.update(
+        { decision, decidedAt: fn('now'), decidedBy },
+        {
+          where: { systemId: request.systemId, requesterId: request.requesterId, decision: null },
+          returning: ['id'],
+        },
       );
       return rows.map((row) => row.id);
     },
 
     async attachGrant(ids: string[], grantId: string): Promise<void> {
-      await sequelize.query(`UPDATE access_requests SET grant_id = :grantId WHERE id IN (:ids)`, {
-        replacements: { ids, grantId },
-      });
+      await AccessRequest.update({ grantId }, { where: { id: ids } });
     },
   };
 }

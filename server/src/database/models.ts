@@ -13,6 +13,7 @@ import { defineGrantModels } from '../access/grant-model';
 import { defineDeviceModels } from '../devices/device-model';
 import { defineAlertModels } from '../alerts/alert-models';
 import { defineInstallerModels } from '../installer/installer-models';
+import { defineAccessRequestModels } from '../access-requests/access-request-models';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -27,6 +28,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineDeviceModels(sequelize),
     ...defineAlertModels(sequelize),
     ...defineInstallerModels(sequelize),
+    ...defineAccessRequestModels(sequelize),
   };
   const {
     Company,
@@ -85,6 +87,16 @@ function defineModels(sequelize: Sequelize) {
   System.hasMany(SavedBudget, { as: 'energyBudgets', foreignKey: 'systemId' });
   SavedBudget.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   SavedBudget.belongsTo(User, { as: 'author', foreignKey: 'createdBy' });
+  const { ShareCode, AccessRequest } = models;
+  System.hasMany(ShareCode, { as: 'shareCodes', foreignKey: 'systemId' });
+  ShareCode.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  ShareCode.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
+  ShareCode.belongsTo(User, { as: 'claimer', foreignKey: 'usedBy' });
+  AccessRequest.belongsTo(User, { as: 'requester', foreignKey: 'requesterId' });
+  AccessRequest.belongsTo(Company, { as: 'requesterCompany', foreignKey: 'requesterCompanyId' });
+  AccessRequest.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  AccessRequest.belongsTo(User, { as: 'decider', foreignKey: 'decidedBy' });
+  AccessRequest.belongsTo(AccessGrant, { as: 'grant', foreignKey: 'grantId' });
   return models;
 }
 

@@ -8,9 +8,11 @@ import {
   type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from 'sequelize';
 import type { ChargeSource, FlagThresholdSettings, SystemSettings } from '@cellwarden/shared';
+import type { User } from '../accounts/account-models';
 
 /** One battery system: its battery, its BMS's ratings, its charge sources and the owner's flag overrides. */
 export class System extends Model<InferAttributes<System>, InferCreationAttributes<System>> {
@@ -33,6 +35,7 @@ export class System extends Model<InferAttributes<System>, InferCreationAttribut
   declare flagThresholds: CreationOptional<Partial<FlagThresholdSettings>>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare owner?: NonAttribute<User>;
 }
 
 /** Binds a subclass of System to one Sequelize instance. */
