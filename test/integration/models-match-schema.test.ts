@@ -23,6 +23,7 @@ const MODELLED_TABLES = [
   'energy_budgets',
   'access_share_codes',
   'access_requests',
+  'system_handovers',
 ];
 
 // The schema comes only from the migrations; the models describe it. This holds the two together: every

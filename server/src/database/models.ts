@@ -14,6 +14,7 @@ import { defineDeviceModels } from '../devices/device-model';
 import { defineAlertModels } from '../alerts/alert-models';
 import { defineInstallerModels } from '../installer/installer-models';
 import { defineAccessRequestModels } from '../access-requests/access-request-models';
+import { defineHandoverModels } from '../onboarding/handover-model';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -29,6 +30,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineAlertModels(sequelize),
     ...defineInstallerModels(sequelize),
     ...defineAccessRequestModels(sequelize),
+    ...defineHandoverModels(sequelize),
   };
   const {
     Company,
@@ -97,6 +99,11 @@ function defineModels(sequelize: Sequelize) {
   AccessRequest.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   AccessRequest.belongsTo(User, { as: 'decider', foreignKey: 'decidedBy' });
   AccessRequest.belongsTo(AccessGrant, { as: 'grant', foreignKey: 'grantId' });
+  const { Handover } = models;
+  System.hasMany(Handover, { as: 'handovers', foreignKey: 'systemId' });
+  Handover.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  Handover.belongsTo(User, { as: 'offerer', foreignKey: 'offeredBy' });
+  Handover.belongsTo(User, { as: 'acceptor', foreignKey: 'acceptedBy' });
   return models;
 }
 

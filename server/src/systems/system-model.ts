@@ -12,7 +12,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { ChargeSource, FlagThresholdSettings, SystemSettings } from '@cellwarden/shared';
-import type { User } from '../accounts/account-models';
+import type { Company, User } from '../accounts/account-models';
 
 /** One battery system: its battery, its BMS's ratings, its charge sources and the owner's flag overrides. */
 export class System extends Model<InferAttributes<System>, InferCreationAttributes<System>> {
@@ -36,6 +36,7 @@ export class System extends Model<InferAttributes<System>, InferCreationAttribut
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare owner?: NonAttribute<User>;
+  declare installerCompany?: NonAttribute<Company | null>;
 }
 
 /** Binds a subclass of System to one Sequelize instance. */
