@@ -24,6 +24,8 @@ const MODELLED_TABLES = [
   'access_share_codes',
   'access_requests',
   'system_handovers',
+  'battery_capacity_samples',
+  'battery_health_checkpoints',
 ];
 
 // The schema comes only from the migrations; the models describe it. This holds the two together: every

@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Sequelize, type Transaction, type WhereOptions } from 'sequelize';
 import type {
   CapacitySample,
   CapacityTrackerState,
@@ -7,6 +7,7 @@ import type {
   MinuteSummary,
 } from '@cellwarden/shared';
 import { epochMs as ms } from '../database/sql-values';
+import { initModels } from '../database/models';
 
 /** What the health job has consumed of one system's rollups, and the state it resumes from. */
 export interface HealthCheckpoint {
@@ -42,16 +43,8 @@ const HOUR_COLUMNS = `${ms('bucket_start')} AS start, ah_in AS "ahIn", ah_out AS
   wh_out AS "whOut", temperature_min AS "temperatureMin", temperature_max AS "temperatureMax",
   temperature_sum / reading_count AS "temperatureMean", soc_min AS "socMin", soc_max AS "socMax",
   soc_last AS "socLast", reading_count AS "readingCount"`;
-const SELECT_CHECKPOINT = `SELECT system_id AS "systemId", capacity_state AS "capacityState",
-  ${ms('minutes_through')} AS "minutesThrough", lifecycle_state AS "lifecycleState",
-  ${ms('hours_through')} AS "hoursThrough", usable_ah AS "usableAh",
-  hours_reading_count::float8 AS "hoursReadingCount", late_rebuilds AS "lateRebuilds",
-  ${ms('covered_from')} AS "coveredFrom"
-  FROM battery_health_checkpoints`;
-const SELECT_SAMPLE = `SELECT ${ms('at')} AS at, ${ms('full_at')} AS "fullAt", usable_ah AS "usableAh",
-  sigma_ah AS "sigmaAh", counted_ah AS "countedAh", soc_at_end AS "socAtEnd", method, temperature
-  FROM battery_capacity_samples`;
 const toDate = (at: number | null) => (at === null ? null : new Date(at));
+const toMs = (at: Date | null) => (at === null ? null : at.getTime());
 
 // Null columns come back as null; the domain types leave an unknown state of charge out.
 function withoutNulls<T extends object>(row: T): T {
@@ -61,6 +54,7 @@ function withoutNulls<T extends object>(row: T): T {
 
 /** Data access for capacity samples, health checkpoints and the rollups the health job reads. */
 export function createBatteryHealthRepository(sequelize: Sequelize) {
+  const { System, CapacitySampleRow, HealthCheckpointRow } = initModels(sequelize);
   const select = async <T extends object>(
     sql: string,
     replacements: Record<string, unknown>,
@@ -75,6 +69,7 @@ export function createBatteryHealthRepository(sequelize: Sequelize) {
       work: (transaction: Transaction) => Promise<T>,
     ): Promise<T | undefined> {
       return sequelize.transaction(async (transaction) => {
+        // A transaction-level advisory lock (released at commit): no model says it.
         const [{ locked }] = await select<{ locked: boolean }>(
           `SELECT pg_try_advisory_xact_lock(hashtext('battery-health'), hashtext(:systemId)) AS locked`,
           { systemId },
@@ -85,13 +80,12 @@ export function createBatteryHealthRepository(sequelize: Sequelize) {
     },
 
     async findSystem(systemId: string, transaction?: Transaction): Promise<HealthSystem | undefined> {
-      const [row] = await select<HealthSystem>(
-        `SELECT id, chemistry, nominal_voltage AS "nominalVoltage", rated_capacity_ah AS "ratedCapacityAh",
-           usable_capacity_ah AS "usableCapacityAh", time_zone AS "timeZone" FROM systems WHERE id = :systemId`,
-        { systemId },
+      const row = await System.findByPk(systemId, {
+        attributes: ['id', 'chemistry', 'nominalVoltage', 'ratedCapacityAh', 'usableCapacityAh', 'timeZone'],
+        raw: true,
         transaction,
-      );
-      return row;
+      });
+      return row ?? undefined;
     },
 
     /** Systems with a complete minute or hour bucket the job has not yet consumed. */
@@ -108,12 +102,19 @@ export function createBatteryHealthRepository(sequelize: Sequelize) {
     },
 
     async findCheckpoint(systemId: string, transaction?: Transaction): Promise<HealthCheckpoint | undefined> {
-      const [row] = await select<HealthCheckpoint>(
-        `${SELECT_CHECKPOINT} WHERE system_id = :systemId`,
-        { systemId },
-        transaction,
-      );
-      return row;
+      const row = await HealthCheckpointRow.findByPk(systemId, { raw: true, transaction });
+      if (!row) return undefined;
+      return {
+        systemId: row.systemId,
+        capacityState: row.capacityState,
+        minutesThrough: toMs(row.minutesThrough),
+        lifecycleState: row.lifecycleState,
+        hoursThrough: toMs(row.hoursThrough),
+        usableAh: row.usableAh,
+        hoursReadingCount: Number(row.hoursReadingCount),
+        lateRebuilds: row.lateRebuilds,
+        coveredFrom: toMs(row.coveredFrom),
+      };
     },
 
     /**
@@ -173,47 +174,37 @@ export function createBatteryHealthRepository(sequelize: Sequelize) {
       samples: readonly CapacitySample[],
       transaction: Transaction,
     ): Promise<void> {
-      for (let i = 0; i < samples.length; i += 500) await insertSamples(samples.slice(i, i + 500));
-      await sequelize.query(
-        `INSERT INTO battery_health_checkpoints (system_id, capacity_state, minutes_through, lifecycle_state,
-           hours_through, usable_ah, hours_reading_count, late_rebuilds, covered_from, updated_at)
-         VALUES (:systemId, :capacityState::jsonb, :minutesThrough, :lifecycleState::jsonb, :hoursThrough,
-           :usableAh, :hoursReadingCount, :lateRebuilds, :coveredFrom, now())
-         ON CONFLICT (system_id) DO UPDATE SET capacity_state = excluded.capacity_state,
-           minutes_through = excluded.minutes_through, lifecycle_state = excluded.lifecycle_state,
-           hours_through = excluded.hours_through, usable_ah = excluded.usable_ah,
-           hours_reading_count = excluded.hours_reading_count, late_rebuilds = excluded.late_rebuilds,
-           covered_from = excluded.covered_from, updated_at = now()`,
+      // Many rows at once, a sample already stored kept (bulkCreate's ignoreDuplicates: ON CONFLICT DO NOTHING).
+      for (let i = 0; i < samples.length; i += 500)
+        await CapacitySampleRow.bulkCreate(
+          samples.slice(i, i + 500).map((sample) => ({
+            systemId: checkpoint.systemId,
+            at: new Date(sample.at),
+            fullAt: new Date(sample.fullAt),
+            usableAh: sample.usableAh,
+            sigmaAh: sample.sigmaAh,
+            countedAh: sample.countedAh,
+            socAtEnd: sample.socAtEnd,
+            method: sample.method,
+            temperature: sample.temperature ?? null,
+          })),
+          { ignoreDuplicates: true, returning: false, transaction },
+        );
+      // INSERT … ON CONFLICT (system_id) DO UPDATE; updated_at is the database's now() (the model's default).
+      await HealthCheckpointRow.upsert(
         {
-          replacements: {
-            ...checkpoint,
-            capacityState: JSON.stringify(checkpoint.capacityState),
-            lifecycleState: JSON.stringify(checkpoint.lifecycleState),
-            minutesThrough: toDate(checkpoint.minutesThrough),
-            hoursThrough: toDate(checkpoint.hoursThrough),
-            coveredFrom: toDate(checkpoint.coveredFrom),
-          },
-          transaction,
+          systemId: checkpoint.systemId,
+          capacityState: checkpoint.capacityState,
+          minutesThrough: toDate(checkpoint.minutesThrough),
+          lifecycleState: checkpoint.lifecycleState,
+          hoursThrough: toDate(checkpoint.hoursThrough),
+          usableAh: checkpoint.usableAh,
+          hoursReadingCount: checkpoint.hoursReadingCount,
+          lateRebuilds: checkpoint.lateRebuilds,
+          coveredFrom: toDate(checkpoint.coveredFrom),
         },
+        { returning: false, transaction },
       );
-
-      async function insertSamples(batch: readonly CapacitySample[]) {
-        if (batch.length === 0) return;
-        const values = batch.map(
-          (_, i) =>
-            `(:systemId, to_timestamp(:at${i} / 1000.0), to_timestamp(:fullAt${i} / 1000.0), :usableAh${i},
-              :sigmaAh${i}, :countedAh${i}, :socAtEnd${i}, :method${i}, :temperature${i})`,
-        );
-        const replacements: Record<string, unknown> = { systemId: checkpoint.systemId };
-        batch.forEach((sample, i) => {
-          for (const [key, value] of Object.entries(sample)) replacements[`${key}${i}`] = value;
-        });
-        await sequelize.query(
-          `INSERT INTO battery_capacity_samples (system_id, at, full_at, usable_ah, sigma_ah, counted_ah,
-             soc_at_end, method, temperature) VALUES ${values.join(', ')} ON CONFLICT DO NOTHING`,
-          { replacements, transaction },
-        );
-      }
     },
 
     /** Capacity samples of a system, oldest first, optionally within [from, to). */
@@ -221,12 +212,26 @@ export function createBatteryHealthRepository(sequelize: Sequelize) {
       systemId: string,
       range: { from?: number; to?: number } = {},
     ): Promise<CapacitySample[]> {
-      return select<CapacitySample>(
-        `${SELECT_SAMPLE} WHERE system_id = :systemId
-           AND at >= coalesce(:from, '-infinity'::timestamptz) AND at < coalesce(:to, 'infinity'::timestamptz)
-         ORDER BY at`,
-        { systemId, from: toDate(range.from ?? null), to: toDate(range.to ?? null) },
-      );
+      const at: WhereOptions = {};
+      if (range.from !== undefined) Object.assign(at, { [Op.gte]: new Date(range.from) });
+      if (range.to !== undefined) Object.assign(at, { [Op.lt]: new Date(range.to) });
+      const rows = await CapacitySampleRow.findAll({
+        where: Reflect.ownKeys(at).length > 0 ? { systemId, at } : { systemId },
+        attributes: ['at', 'fullAt', 'usableAh', 'sigmaAh', 'countedAh', 'socAtEnd', 'method', 'temperature'],
+        order: [['at', 'ASC']],
+        raw: true,
+      });
+      // A sample with no temperature comes back with `temperature: null`, as it always has.
+      return rows.map((row) => ({
+        at: row.at.getTime(),
+        fullAt: row.fullAt.getTime(),
+        usableAh: row.usableAh,
+        sigmaAh: row.sigmaAh,
+        countedAh: row.countedAh,
+        socAtEnd: row.socAtEnd,
+        method: row.method,
+        temperature: row.temperature as number,
+      }));
     },
   };
 }

@@ -15,6 +15,7 @@ import { defineAlertModels } from '../alerts/alert-models';
 import { defineInstallerModels } from '../installer/installer-models';
 import { defineAccessRequestModels } from '../access-requests/access-request-models';
 import { defineHandoverModels } from '../onboarding/handover-model';
+import { defineBatteryHealthModels } from '../battery-health/battery-health-models';
 
 function defineModels(sequelize: Sequelize) {
   const models = {
@@ -31,6 +32,7 @@ function defineModels(sequelize: Sequelize) {
     ...defineInstallerModels(sequelize),
     ...defineAccessRequestModels(sequelize),
     ...defineHandoverModels(sequelize),
+    ...defineBatteryHealthModels(sequelize),
   };
   const {
     Company,
@@ -104,6 +106,11 @@ function defineModels(sequelize: Sequelize) {
   Handover.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   Handover.belongsTo(User, { as: 'offerer', foreignKey: 'offeredBy' });
   Handover.belongsTo(User, { as: 'acceptor', foreignKey: 'acceptedBy' });
+  const { CapacitySampleRow, HealthCheckpointRow } = models;
+  System.hasMany(CapacitySampleRow, { as: 'capacitySamples', foreignKey: 'systemId' });
+  CapacitySampleRow.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  System.hasOne(HealthCheckpointRow, { as: 'healthCheckpoint', foreignKey: 'systemId' });
+  HealthCheckpointRow.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   return models;
 }
 
