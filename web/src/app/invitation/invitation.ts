@@ -8,18 +8,14 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router, RouterLink } from '@angular/router';
 import type { InvitationPreview } from '@cellwarden/shared';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import { switchMap } from 'rxjs';
 import { Auth } from '../core/auth';
 import { PasswordFields } from '../core/password-fields/password-fields';
 import { passwordPair, passwordsMatch } from '../core/password-rules';
 import { serverErrorOf, showServerError } from '../core/api-error';
+import { LoadState, toLoadState } from '../core/load-state';
 import { InvitationApi } from './invitation-api';
 import { roleLabel } from '../core/role-label';
-
-type PreviewState =
-  | { status: 'loading' }
-  | { status: 'error'; message: string }
-  | { status: 'loaded'; invitation: InvitationPreview };
 
 /** Accepting an invitation (route /invitation/:token): shows what it is for, then name and password. */
 @Component({
@@ -51,22 +47,13 @@ export class Invitation {
   protected readonly preview = toSignal(
     toObservable(this.token).pipe(
       switchMap((token) =>
-        this.api.preview(token).pipe(
-          map((invitation): PreviewState => ({ status: 'loaded', invitation })),
-          catchError((error: unknown) =>
-            of<PreviewState>({
-              status: 'error',
-              message: serverErrorOf(
-                error,
-                'This invitation cannot be opened. It may have expired or been used.',
-              ).message,
-            }),
-          ),
-          startWith<PreviewState>({ status: 'loading' }),
+        toLoadState(
+          this.api.preview(token),
+          'This invitation cannot be opened. It may have expired or been used.',
         ),
       ),
     ),
-    { initialValue: { status: 'loading' } as PreviewState },
+    { initialValue: { status: 'loading' } as LoadState<InvitationPreview> },
   );
   protected readonly form = this.fb.nonNullable.group(
     { displayName: ['', [Validators.required, Validators.maxLength(100)]], ...passwordPair(this.fb) },
