@@ -5,8 +5,8 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { BatteryHealthResponse } from '@cellwarden/shared';
 import type { ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
-import { Observable, catchError, map, of, startWith, switchMap } from 'rxjs';
-import { apiProblem, loadFailureText, type ApiProblem } from '../core/api-error';
+import { switchMap } from 'rxjs';
+import { LoadState, dataFailure, loadError, loadedOr, toLoadState } from '../core/load-state';
 import { provideChartSetup } from '../core/chart-setup';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { Preferences } from '../core/preferences';
@@ -22,11 +22,6 @@ import {
   temperatureChart,
 } from './health-charts';
 import { ReportDownload } from './report-download/report-download';
-
-type Load =
-  | { phase: 'loading' }
-  | { phase: 'error'; problem: ApiProblem }
-  | { phase: 'ready'; value: BatteryHealthResponse };
 
 const BAR_OPTIONS: ChartOptions<'bar'> = {
   responsive: true,
@@ -64,20 +59,17 @@ export class BatteryHealth {
   protected readonly load = toSignal(
     // The sentences carry temperatures, so a change of unit asks for them again.
     toObservable(computed(() => ({ id: this.id(), unit: this.preferences.temperatureUnit() }))).pipe(
-      switchMap(({ id, unit }) => asLoad(this.api.health(id, unit))),
+      switchMap(({ id, unit }) =>
+        toLoadState(
+          this.api.health(id, unit),
+          dataFailure('The battery health could not be loaded. Reload the page to try again.'),
+        ),
+      ),
     ),
-    { initialValue: { phase: 'loading' } as Load },
+    { initialValue: { status: 'loading' } as LoadState<BatteryHealthResponse> },
   );
-  protected readonly health = computed(() => {
-    const load = this.load();
-    return load.phase === 'ready' ? load.value : null;
-  });
-  protected readonly problem = computed(() => {
-    const load = this.load();
-    return load.phase === 'error'
-      ? loadFailureText(load.problem, 'The battery health could not be loaded. Reload the page to try again.')
-      : null;
-  });
+  protected readonly health = computed(() => loadedOr(this.load(), null));
+  protected readonly problem = computed(() => loadError(this.load()));
   protected readonly headline = computed(() => this.health()?.words[0] ?? null);
   protected readonly moreWords = computed(() => this.health()?.words.slice(1) ?? []);
   protected readonly figures = computed(() => this.health()?.figures ?? null);
@@ -134,12 +126,4 @@ export class BatteryHealth {
     new Intl.DateTimeFormat(this.locale, { dateStyle: 'medium', timeZone }).format(at);
   protected readonly number = (value: number, digits = 0) =>
     new Intl.NumberFormat(this.locale, { maximumFractionDigits: digits }).format(value);
-}
-
-function asLoad(source: Observable<BatteryHealthResponse>): Observable<Load> {
-  return source.pipe(
-    map((value): Load => ({ phase: 'ready', value })),
-    catchError((error: unknown) => of<Load>({ phase: 'error', problem: apiProblem(error) })),
-    startWith<Load>({ phase: 'loading' }),
-  );
 }
