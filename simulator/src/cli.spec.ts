@@ -1,5 +1,6 @@
 import { CliArgumentError, parseCli, USAGE } from './cli';
 import { SCENARIO_NAMES } from './scenario-catalog';
+import { monitorExample } from '@cellwarden/shared';
 
 const device = ['--device', 'cw-van:secret'];
 
@@ -100,5 +101,22 @@ describe('command line', () => {
 
   it('refuses an unknown option by name', () => {
     expect(() => parseCli([...device, '--turbo'])).toThrow(/--turbo/);
+  });
+
+  it('accepts the simulator command shown with a new monitor, as the shell would split it', () => {
+    const { simulatorCommand } = monitorExample({
+      brokerUrl: 'mqtt://127.0.0.1:1883',
+      deviceId: 'cabin-shunt-2',
+      password: "it's-secret",
+    });
+    // POSIX sh: single-quoted words lose their quotes; '\'' is an escaped quote between two quoted parts.
+    const words = simulatorCommand
+      .replace(/^npm run simulate -- /, '')
+      .match(/(?:'[^']*'|\\'|[^\s'])+/g)!
+      .map((word) => word.replace(/'\\''/g, "'").replace(/^'|'$/g, '').replace(/\\'/g, "'"));
+    const options = parseCli(words);
+    expect(options.devices).toEqual([{ id: 'cabin-shunt-2', secret: "it's-secret" }]);
+    expect(options.broker).toBe('mqtt://127.0.0.1:1883');
+    expect(SCENARIO_NAMES).toContain(options.scenarios[0]);
   });
 });

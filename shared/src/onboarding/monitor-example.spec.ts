@@ -40,4 +40,11 @@ describe('monitor example', () => {
   it('refuses a broker URL of another scheme', () => {
     expect(() => monitorExample({ ...input, brokerUrl: 'http://x' })).toThrow(/mqtt:\/\/ or mqtts:\/\//);
   });
+
+  it('offers the project simulator playing this monitor against the same broker', () => {
+    expect(monitorExample(input).simulatorCommand).toBe(
+      "npm run simulate -- --broker 'mqtt://broker.example:1884' --device 'van-shunt-1:s3cr-et_x' " +
+        '--scenario charger-commissioning --interval 5',
+    );
+  });
 });

@@ -10,11 +10,16 @@ export interface MonitorExampleInput {
   password: string;
 }
 
-/** A SenML pack and a shell command that publishes it. */
+/** A SenML pack and a shell command that publishes it, and the project's simulator playing this monitor. */
 export interface MonitorExample {
   payload: string;
   command: string;
+  /** Run in a Cellwarden checkout: a simulated bank reports as this monitor until stopped. */
+  simulatorCommand: string;
 }
+
+/** The simulator scenario offered for a new monitor: a 12 V bank with a 60 A DC-DC charger on a workshop engine. */
+export const EXAMPLE_SCENARIO = 'charger-commissioning';
 
 // POSIX sh single quotes: nothing inside is special; a quote itself is closed, escaped and reopened.
 const shellQuote = (text: string) => `'${text.replace(/'/g, `'\\''`)}'`;
@@ -53,5 +58,12 @@ export function monitorExample(input: MonitorExampleInput, nominalVoltage = 12):
     `-t ${shellQuote(readingsTopic(input.deviceId))}`,
     `-m ${shellQuote(payload)}`,
   ];
-  return { payload, command: parts.join(' ') };
+  const simulator = [
+    'npm run simulate --',
+    `--broker ${shellQuote(`${secure ? 'mqtts' : 'mqtt'}://${url.host}`)}`,
+    `--device ${shellQuote(`${input.deviceId}:${input.password}`)}`,
+    `--scenario ${EXAMPLE_SCENARIO}`,
+    '--interval 5',
+  ];
+  return { payload, command: parts.join(' '), simulatorCommand: simulator.join(' ') };
 }
