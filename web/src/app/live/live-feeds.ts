@@ -1,8 +1,9 @@
 import type { SystemSettings, SystemStatus, SystemSummary } from '@cellwarden/shared';
-import { Observable, catchError, concat, filter, map, merge, of, scan, startWith, takeWhile } from 'rxjs';
+import { Observable, catchError, concat, filter, map, merge, of, scan, takeWhile } from 'rxjs';
 import { Api } from '../core/api';
-import { ApiProblem, apiProblem } from '../core/api-error';
+import { apiProblem } from '../core/api-error';
 import { LiveStream, SystemStreamEvent } from '../core/live-stream';
+import { LoadState, toLoadState } from '../core/load-state';
 import { SettingsApi } from '../core/settings-api';
 import { LiveState, applyStreamEvent, seedLiveState } from './live-state';
 import { ChartPoint, appendWithin } from './to-chart-series';
@@ -13,8 +14,7 @@ export const LIVE_WINDOW_MS = 3 * 60 * 60 * 1000;
 export const LIVE_MAX_POINTS = 2400;
 
 /** Loading, failed, or the live state. */
-export type LiveLoad =
-  { phase: 'loading' } | { phase: 'error'; problem: ApiProblem } | { phase: 'ready'; state: LiveState };
+export type LiveLoad = LoadState<LiveState>;
 
 /** The system's description, or 'missing' when it cannot be seen. */
 export function systemOrMissing(api: Api, id: string): Observable<SystemSummary | 'missing'> {
@@ -31,17 +31,17 @@ type Folding = { state: LiveState | null; early: SystemStreamEvent[] };
  * way; events arriving first wait for it and are folded in after it.
  */
 export function liveStates(api: Api, stream: LiveStream, id: string): Observable<LiveLoad> {
-  return merge(
+  const states = merge(
     api.status(id).pipe(map((status): LiveStep => ({ kind: 'seed', status }))),
     stream.events(id).pipe(map((event): LiveStep => ({ kind: 'event', event }))),
   ).pipe(
     scan(foldLiveStep, { state: null, early: [] }),
     filter((folding): folding is { state: LiveState; early: [] } => folding.state !== null),
-    map((folding): LiveLoad => ({ phase: 'ready', state: folding.state })),
-    takeWhile((load) => load.phase !== 'ready' || !load.state.accessEnded, true),
-    catchError((error: unknown) => of<LiveLoad>({ phase: 'error', problem: apiProblem(error) })),
-    startWith<LiveLoad>({ phase: 'loading' }),
+    map((folding) => folding.state),
+    takeWhile((state) => !state.accessEnded, true),
   );
+  // The server's own message, whatever it is.
+  return toLoadState(states, (error) => apiProblem(error).message);
 }
 
 /** One step of `liveStates`: exported for its spec. */

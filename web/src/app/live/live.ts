@@ -10,7 +10,7 @@ import { provideChartSetup } from '../core/chart-setup';
 import { switchMap } from 'rxjs';
 import { Api } from '../core/api';
 import { ChartColours } from '../core/chart-palette';
-import type { ApiProblem } from '../core/api-error';
+import { loadError, loadedOr } from '../core/load-state';
 import { currentDirection } from '../core/current-direction';
 import { formatInstant, viewerTimeZone } from '../core/date-time';
 import { DateTimePipe } from '../core/date-time-pipe';
@@ -69,7 +69,7 @@ export class Live {
   protected readonly load = toSignal(
     this.id$.pipe(switchMap((id) => liveStates(this.api, this.stream, id))),
     {
-      initialValue: { phase: 'loading' as const },
+      initialValue: { status: 'loading' as const },
     },
   );
   private readonly settings = toSignal(
@@ -99,14 +99,8 @@ export class Live {
   );
 
   protected readonly connectionState = this.stream.connectionState;
-  protected readonly state = computed(() => {
-    const load = this.load();
-    return load.phase === 'ready' ? load.state : null;
-  });
-  protected readonly problem = computed<ApiProblem | null>(() => {
-    const load = this.load();
-    return load.phase === 'error' ? load.problem : null;
-  });
+  protected readonly state = computed(() => loadedOr(this.load(), null));
+  protected readonly problem = computed(() => loadError(this.load()));
   protected readonly summary = computed(() => {
     const system = this.system();
     return system && system !== 'missing' ? system : null;
