@@ -212,21 +212,19 @@ describe('Alerts', () => {
     };
     Object.defineProperty(TestBed.inject(Auth), 'currentUser', { value: signal(user) });
     const { fixture, http, loader } = await render({ alerts: [alert('a')] });
-    http
-      .expectOne('/api/systems/van-1')
-      .flush({
-        system: {
-          id: 'van-1',
-          name: 'Blue van',
-          kind: 'van',
-          chemistry: 'lifepo4',
-          nominalVoltage: 12,
-          ratedCapacityAh: 200,
-          usableCapacityAh: 180,
-          latestReading: null,
-          allowedActions: ['view', 'export', 'read-audit'],
-        },
-      });
+    http.expectOne('/api/systems/van-1').flush({
+      system: {
+        id: 'van-1',
+        name: 'Blue van',
+        kind: 'van',
+        chemistry: 'lifepo4',
+        nominalVoltage: 12,
+        ratedCapacityAh: 200,
+        usableCapacityAh: 180,
+        latestReading: null,
+        allowedActions: ['view', 'export', 'read-audit'],
+      },
+    });
     http.expectOne('/api/grants/received').flush({ grants: [] });
     await fixture.whenStable();
     expect((fixture.nativeElement as HTMLElement).textContent).toContain(

@@ -160,21 +160,19 @@ describe('Settings', () => {
   it('shows a view grant’s form disabled, with the reason, before the person tries to save', async () => {
     const { fixture, http, loader, input } = await render();
     signedInAs(['support']);
-    http
-      .expectOne('/api/systems/van-1')
-      .flush({
-        system: {
-          id: 'van-1',
-          name: 'Blue van',
-          kind: 'van',
-          chemistry: 'lifepo4',
-          nominalVoltage: 12,
-          ratedCapacityAh: 200,
-          usableCapacityAh: 180,
-          latestReading: null,
-          allowedActions: ['view', 'export'],
-        },
-      });
+    http.expectOne('/api/systems/van-1').flush({
+      system: {
+        id: 'van-1',
+        name: 'Blue van',
+        kind: 'van',
+        chemistry: 'lifepo4',
+        nominalVoltage: 12,
+        ratedCapacityAh: 200,
+        usableCapacityAh: 180,
+        latestReading: null,
+        allowedActions: ['view', 'export'],
+      },
+    });
     http.expectOne('/api/grants/received').flush({
       grants: [
         {
@@ -207,21 +205,19 @@ describe('Settings', () => {
   it('keeps the form open for someone the server lets configure, such as the installer', async () => {
     const { fixture, http, input } = await render();
     signedInAs(['owner']);
-    http
-      .expectOne('/api/systems/van-1')
-      .flush({
-        system: {
-          id: 'van-1',
-          name: 'Blue van',
-          kind: 'van',
-          chemistry: 'lifepo4',
-          nominalVoltage: 12,
-          ratedCapacityAh: 200,
-          usableCapacityAh: 180,
-          latestReading: null,
-          allowedActions: ['view', 'export', 'configure', 'manage-devices', 'commission'],
-        },
-      });
+    http.expectOne('/api/systems/van-1').flush({
+      system: {
+        id: 'van-1',
+        name: 'Blue van',
+        kind: 'van',
+        chemistry: 'lifepo4',
+        nominalVoltage: 12,
+        ratedCapacityAh: 200,
+        usableCapacityAh: 180,
+        latestReading: null,
+        allowedActions: ['view', 'export', 'configure', 'manage-devices', 'commission'],
+      },
+    });
     http.expectOne('/api/grants/received').flush({ grants: [] });
     await fixture.whenStable();
     expect(await (await input('Name'))!.isDisabled()).toBe(false);
