@@ -101,4 +101,17 @@ describe('initModels', () => {
     expect(Object.keys(SystemAlert.getAttributes())).not.toContain('createdAt');
     expect((AlertNotice.getAttributes().sentAt.defaultValue as { fn: string }).fn).toBe('now');
   });
+
+  it("judges share codes, access requests and hand-overs at the caller's instant, and runs by their status", () => {
+    const { ShareCode, AccessRequest, Handover, CommissioningRun } = initModels(offline());
+    const at = Date.UTC(2026, 5, 1, 12);
+    const scoped = (model: { options: { scopes?: Record<string, unknown> } }) =>
+      (model.options.scopes?.active as (now: number) => { where: Record<string, unknown> })(at).where;
+    const expiry = (where: Record<string, unknown>) => (where.expiresAt as Record<symbol, Date>)[Op.gt];
+    expect([scoped(ShareCode).usedAt, expiry(scoped(ShareCode))]).toEqual([null, new Date(at)]);
+    expect([scoped(AccessRequest).decision, expiry(scoped(AccessRequest))]).toEqual([null, new Date(at)]);
+    expect([scoped(Handover).acceptedAt, expiry(scoped(Handover))]).toEqual([null, new Date(at)]);
+    const running = CommissioningRun.options.scopes?.running as { where: Record<string, unknown> };
+    expect(running.where).toEqual({ status: 'running' });
+  });
 });
