@@ -37,12 +37,16 @@ module.exports = {
       moduleNameMapper: { '^@cellwarden/shared$': '<rootDir>/shared/src/index.ts' },
       testMatch: ['**/*.spec.ts'],
     },
-    nodeProject('integration', ['<rootDir>/test/integration'], { testMatch: ['**/*.test.ts'] }),
+    // A 2-core CI machine also runs PostgreSQL, the broker and Chromium: a ceiling for a stuck test, not a timing.
+    nodeProject('integration', ['<rootDir>/test/integration'], {
+      testMatch: ['**/*.test.ts'],
+      testTimeout: 120000,
+    }),
     nodeProject('reliability', ['<rootDir>/test/reliability'], {
       testMatch: ['**/*.test.ts'],
       testTimeout: 120000,
     }),
     nodeProject('cluster', ['<rootDir>/test/cluster'], { testMatch: ['**/*.test.ts'], testTimeout: 120000 }),
-    nodeProject('browser', ['<rootDir>/test/browser'], { testMatch: ['**/*.test.ts'] }),
+    nodeProject('browser', ['<rootDir>/test/browser'], { testMatch: ['**/*.test.ts'], testTimeout: 120000 }),
   ],
 };
