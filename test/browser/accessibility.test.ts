@@ -237,7 +237,7 @@ it('shows a visible focus ring on the controls a keyboard user tabs through', as
   expect(unringed).toEqual([]);
 });
 
-it('lets a keyboard user skip to the content, switch theme, open the user menu and sign out', async () => {
+it('lets a keyboard user skip to the content, switch theme, open the user menu, pass their account and sign out', async () => {
   const context = await newContext(1280);
   const page = await signIn(context, OWNER);
   await open(page, '/systems', 'Systems');
@@ -255,7 +255,14 @@ it('lets a keyboard user skip to the content, switch theme, open the user menu a
 
   await page.getByRole('button', { name: 'User menu' }).focus();
   await page.keyboard.press('Enter');
-  await page.getByRole('menuitem', { name: 'Sign out' }).waitFor();
+  // The menu opens on its first item, the account page; the arrow key moves on to signing out.
+  await expect(
+    page.getByRole('menuitem', { name: 'Your account' }).evaluate((el) => el === document.activeElement),
+  ).resolves.toBe(true);
+  await page.keyboard.press('ArrowDown');
+  await expect(
+    page.getByRole('menuitem', { name: 'Sign out' }).evaluate((el) => el === document.activeElement),
+  ).resolves.toBe(true);
   await page.keyboard.press('Enter');
   await page.waitForURL(/sign-in/);
   await context.close();
