@@ -30,11 +30,22 @@ async function signIn(page: Page, email: string, path: string) {
   await page.waitForURL((url) => url.pathname === path);
 }
 
+/**
+ * Picks a role in the invite form. The select's panel animates closed after a choice; a click that lands while
+ * it is still closing would toggle it shut, so each step waits for the panel to be gone first.
+ */
+async function chooseRole(page: Page, role: string) {
+  const listbox = page.getByRole('listbox');
+  await listbox.waitFor({ state: 'detached' });
+  await page.getByRole('form', { name: 'Invite someone' }).getByRole('combobox', { name: 'Role' }).click();
+  await page.getByRole('option', { name: role, exact: true }).click();
+  await listbox.waitFor({ state: 'detached' });
+}
+
 async function invite(page: Page, email: string, role: string) {
   const form = page.getByRole('form', { name: 'Invite someone' });
   await form.getByLabel('E-mail').fill(email);
-  await form.getByRole('combobox', { name: 'Role' }).click();
-  await page.getByRole('option', { name: role, exact: true }).click();
+  await chooseRole(page, role);
   await form.getByRole('button', { name: 'Send invitation' }).click();
   await page.getByText(`Invitation sent to ${email}.`).waitFor();
 }
@@ -50,14 +61,9 @@ async function invitationLink(email: string): Promise<string> {
 it('invites a support person who sees only the shared system, withdraws another, and removal ends the session', async () => {
   const adminPage = await harness.chromium.browser.newPage({ viewport: { width: 1280, height: 900 } });
   await signIn(adminPage, admin.email, '/team');
-  await adminPage
-    .getByRole('form', { name: 'Invite someone' })
-    .getByRole('combobox', { name: 'Role' })
-    .click();
   // Each role says what it lets the person see before it is chosen.
-  await adminPage.getByRole('option', { name: 'Support', exact: true }).click();
+  await chooseRole(adminPage, 'Support');
   await adminPage.getByText(/Sees only the systems an owner has shared/).waitFor();
-  await adminPage.keyboard.press('Escape');
   await invite(adminPage, NEWCOMER, 'Support');
   await invite(adminPage, CHANGED_MIND, 'Installer');
 
