@@ -14,7 +14,9 @@ import {
 
 const DATABASE = 'cellwarden_bench';
 const cluster = describeCluster({
-  dataDir: join(projectRoot, '.data', 'pg-bench'),
+  // Both overridable, so two benches (say, one engineer's dashboard timing beside another's storage run) can
+  // each have a cluster of their own.
+  dataDir: process.env.CW_BENCH_DATA_DIR ?? join(projectRoot, '.data', 'pg-bench'),
   port: Number(process.env.CW_BENCH_PG_PORT ?? 54331),
   superuser: 'cellwarden',
   password: 'cellwarden-bench',
