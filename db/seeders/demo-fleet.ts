@@ -9,7 +9,7 @@ import {
 } from '@cellwarden/shared';
 import { hashDeviceSecret } from '../../server/src/devices/device-secret';
 import { toCheckResult } from '../../server/src/installer/commissioning-service';
-import { createReadingsRepository } from '../../server/src/telemetry/readings-repository';
+import { createReadingsHistoryImport } from '../../server/src/telemetry/readings-history-import';
 import { SCENARIOS, SCENARIO_SUMMARIES } from '../../simulator/src/scenario-catalog';
 import { simulateReadings } from '../../simulator/src/simulate-readings';
 import { localHour } from '../../simulator/src/local-time';
@@ -140,7 +140,7 @@ async function seedSilentMonitor(
     intervalSeconds: 60,
     count: 30,
   }).readings;
-  await createReadingsRepository(sequelize).insertBatch(
+  await createReadingsHistoryImport(sequelize).store(
     readings.map((reading) => ({ systemId: system.systemId, deviceId: system.deviceId, reading })),
   );
   await sequelize.query(`UPDATE devices SET last_seen_at = :at WHERE id = :id`, {

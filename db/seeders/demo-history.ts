@@ -1,14 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import {
-  analyticsConfigFromSettings,
-  deriveSystemState,
-  resolveSystemAnalyticsSettings,
-  type SystemAnalyticsState,
-} from '@cellwarden/shared';
-import { createAlertsRepository } from '../../server/src/alerts/alerts-repository';
-import { createSettingsRepository } from '../../server/src/settings/settings-repository';
-import { utcOffsetMinutes } from '../../server/src/settings/utc-offset';
-import { createReadingsRepository } from '../../server/src/telemetry/readings-repository';
+import { deriveSystemState, type SystemAnalyticsState } from '@cellwarden/shared';
+import { createAlertHistoryImport } from '../../server/src/alerts/alert-history-import';
+import { createReadingsHistoryImport } from '../../server/src/telemetry/readings-history-import';
 import { SCENARIOS } from '../../simulator/src/scenario-catalog';
 import { playScenario } from '../../simulator/src/simulate-readings';
 import { DEMO_DEVICES } from './demo-scenario';
@@ -29,7 +22,7 @@ export interface DemoTimeline {
 export const demoSeed = (index: number) => 1000 + index;
 
 /**
- * Gives each demo system the past `days` of readings from its scenario, stored through the same repository
+ * Gives each demo system the past `days` of readings from its scenario, stored through the same insert
  * as live ingest (so the rollups are built), and runs the same analytics over them so the alert history is
  * what the live path would have recorded. The scenario is simulated at the live simulators' interval and
  * one reading per `storedEverySeconds` kept, so a simulator resumed from the returned timeline continues
@@ -50,9 +43,8 @@ export async function seedDemoHistory(
   const step = every * options.liveIntervalSeconds * 1000;
   const origin = Math.floor((options.now - options.days * 86400_000) / step) * step;
   const timeline: DemoTimeline = { origin, intervalSeconds: options.liveIntervalSeconds, seeds: {} };
-  const readings = createReadingsRepository(sequelize);
-  const alerts = createAlertsRepository(sequelize);
-  const settingsRepository = createSettingsRepository(sequelize);
+  const readings = createReadingsHistoryImport(sequelize);
+  const alerts = createAlertHistoryImport(sequelize);
   let stored = 0;
   for (const [index, device] of DEMO_DEVICES.entries()) {
     // History follows each bank's lead monitor; a second monitor's readings start when it goes live.
@@ -81,39 +73,17 @@ export async function seedDemoHistory(
       const batch = series
         .slice(i, i + BATCH)
         .map((reading) => ({ systemId: row.systemId, deviceId: device.id, reading }));
-      stored += (await readings.insertBatch(batch)).length;
+      stored += (await readings.store(batch)).length;
       options.log?.(
         `demo history ${device.id}: ${Math.min(i + BATCH, series.length)}/${series.length} readings`,
       );
     }
-    const stored_settings = (await settingsRepository.find(row.systemId))!;
-    const settings = resolveSystemAnalyticsSettings(
-      analyticsConfigFromSettings(
-        stored_settings as never,
-        utcOffsetMinutes(stored_settings.timeZone, options.now),
-      ),
-    );
+    const settings = await alerts.analyticsSettings(row.systemId, options.now);
     let state: SystemAnalyticsState | undefined;
     for (const reading of series) {
       const result = deriveSystemState(state, reading, settings);
       state = result.state;
-      for (const event of result.events) {
-        if (event.transition === 'start')
-          await alerts.open({
-            systemId: row.systemId,
-            kind: event.kind,
-            severity: event.severity,
-            startedAt: event.at,
-            peakValue: event.peak,
-            unit: event.unit,
-          });
-        else
-          await alerts.update(row.systemId, event.kind, {
-            severity: event.severity,
-            peakValue: event.peak,
-            endedAt: event.transition === 'end' ? event.at : undefined,
-          });
-      }
+      await alerts.record(row.systemId, result.events);
     }
   }
   return { stored, timeline: Object.keys(timeline.seeds).length > 0 ? timeline : undefined };
