@@ -7,6 +7,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { provideRouter } from '@angular/router';
 import type { BatteryHealthResponse } from '@cellwarden/shared';
 import { BaseChartDirective } from 'ng2-charts';
+import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { Preferences } from '../core/preferences';
 import { BatteryHealth } from './battery-health';
 
@@ -84,7 +85,7 @@ describe('BatteryHealth', () => {
       ],
     });
     // jsdom has no canvas; the chart data have their own spec.
-    TestBed.overrideComponent(BatteryHealth, {
+    TestBed.overrideComponent(ChartFigure, {
       remove: { imports: [BaseChartDirective] },
       add: { schemas: [NO_ERRORS_SCHEMA] },
     });

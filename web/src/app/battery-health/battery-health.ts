@@ -4,10 +4,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { BatteryHealthResponse } from '@cellwarden/shared';
 import type { ChartOptions } from 'chart.js';
-import { BaseChartDirective } from 'ng2-charts';
 import { switchMap } from 'rxjs';
 import { LoadState, dataFailure, loadError, loadedOr, toLoadState } from '../core/load-state';
 import { provideChartSetup } from '../core/chart-setup';
+import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { DateTimePipe } from '../core/date-time-pipe';
 import { Preferences } from '../core/preferences';
 import { SystemNav } from '../core/system-nav/system-nav';
@@ -39,7 +39,7 @@ const BAR_OPTIONS: ChartOptions<'bar'> = {
   imports: [
     MatIconModule,
     MatProgressSpinnerModule,
-    BaseChartDirective,
+    ChartFigure,
     DateTimePipe,
     TemperaturePipe,
     SystemNav,
@@ -106,20 +106,26 @@ export class BatteryHealth {
       )
       .join('; ');
   });
-  protected readonly temperatureData = computed(() => {
+  /** The three bar charts of how the battery has been used, each with its caption and spoken summary. */
+  protected readonly barCharts = computed(() => {
     const f = this.figures();
-    return f ? temperatureChart(f, this.preferences.temperatureUnit()) : null;
-  });
-  protected readonly depthData = computed(() => {
-    const f = this.figures();
-    return f ? depthChart(f) : null;
-  });
-  protected readonly energyData = computed(() => {
-    const f = this.figures();
-    return f ? energyChart(f) : null;
+    if (!f) return [];
+    return [
+      {
+        caption: 'Hours by pack temperature',
+        unit: 'h',
+        data: temperatureChart(f, this.preferences.temperatureUnit()),
+      },
+      { caption: 'Cycles by depth of discharge', unit: 'cycles', data: depthChart(f) },
+      { caption: 'Energy in and out, kWh', name: 'Energy', unit: 'kWh', data: energyChart(f) },
+    ].map(({ caption, name = caption, unit, data }) => ({
+      caption,
+      name: `${name}:`,
+      summary: barChartSummary(data, unit),
+      data,
+    }));
   });
   protected readonly barOptions = BAR_OPTIONS;
-  protected readonly summaryOf = barChartSummary;
   protected readonly percent = (fraction: number) =>
     new Intl.NumberFormat(this.locale, { style: 'percent', maximumFractionDigits: 0 }).format(fraction);
   protected readonly day = (at: number, timeZone: string) =>

@@ -10,6 +10,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { Router, provideRouter } from '@angular/router';
 import type { AlertEvent } from '@cellwarden/shared';
 import { BaseChartDirective } from 'ng2-charts';
+import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { flagText } from '../core/flag-text';
 import { History } from './history';
 
@@ -43,7 +44,7 @@ describe('History', () => {
       ],
     });
     // jsdom has no canvas; the series and the chart options (alert bands, drag to zoom) have their own specs.
-    TestBed.overrideComponent(History, {
+    TestBed.overrideComponent(ChartFigure, {
       remove: { imports: [BaseChartDirective] },
       add: { schemas: [NO_ERRORS_SCHEMA] },
     });

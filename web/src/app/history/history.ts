@@ -18,8 +18,8 @@ import { Router } from '@angular/router';
 import type { ChartOptions } from 'chart.js';
 import annotationPlugin from 'chartjs-plugin-annotation';
 import zoomPlugin from 'chartjs-plugin-zoom';
-import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../core/chart-setup';
+import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { switchMap } from 'rxjs';
 import { AlertsApi } from '../core/alerts-api';
 import { Api } from '../core/api';
@@ -56,7 +56,7 @@ import { HISTORY_SERIES, HistorySeries, seriesLabel, toHistorySeries } from './t
     MatCheckboxModule,
     MatIconModule,
     MatProgressSpinnerModule,
-    BaseChartDirective,
+    ChartFigure,
     DateTimePipe,
     SystemNav,
     CustomRange,

@@ -11,6 +11,7 @@ import type {
   SystemSummary,
 } from '@cellwarden/shared';
 import { BaseChartDirective } from 'ng2-charts';
+import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { Subject } from 'rxjs';
 import type { WebSocketSubjectConfig } from 'rxjs/webSocket';
 import { flagText } from '../core/flag-text';
@@ -112,7 +113,7 @@ describe('Live', () => {
       ],
     });
     // jsdom has no canvas; the chart's data is covered by the to-chart-series spec.
-    TestBed.overrideComponent(Live, {
+    TestBed.overrideComponent(ChartFigure, {
       remove: { imports: [BaseChartDirective] },
       add: { schemas: [NO_ERRORS_SCHEMA] },
     });

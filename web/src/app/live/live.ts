@@ -5,8 +5,8 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { ChartOptions } from 'chart.js';
-import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../core/chart-setup';
+import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { switchMap } from 'rxjs';
 import { Api } from '../core/api';
 import { ChartColours } from '../core/chart-palette';
@@ -41,7 +41,7 @@ import { toChartSeries } from './to-chart-series';
     MatCardModule,
     MatIconModule,
     MatProgressSpinnerModule,
-    BaseChartDirective,
+    ChartFigure,
     DecimalPipe,
     DateTimePipe,
     TemperaturePipe,
