@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { connectAsync } from 'mqtt';
 import { encodeReadingPack, readingsTopic } from '@cellwarden/shared';
 import { launchChromium } from '../test/browser/launch-chromium';
+import { formatWaterfall, recordWaterfall } from './dashboard-waterfall';
 import type { Monitor } from './product-node';
 
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
@@ -74,6 +75,7 @@ export async function timeDashboard(options: {
       }
       const cdp = await context.newCDPSession(page);
       await cdp.send('Network.enable');
+      const waterfall = await recordWaterfall(page, cdp, selector);
       let bytes = 0;
       let scriptBytes = 0;
       const scripts = new Set<string>();
@@ -89,14 +91,24 @@ export async function timeDashboard(options: {
       await page.locator(selector).first().waitFor({ state: 'visible', timeout: 30_000 });
       const firstValueMs = performance.now() - started;
       await page.waitForLoadState('networkidle').catch(() => undefined);
+      const rows = await waterfall.rows();
       await context.close();
-      return { firstValueMs, bytes, scriptBytes };
+      return { firstValueMs, bytes, scriptBytes, rows };
     };
     const dashboard = [];
     const bare = [];
     for (let i = 0; i < options.runs; i++) {
       dashboard.push(await visit(`/systems/${monitor.systemId}`, '.tiles .tile dd', false));
       bare.push(await visit(bareUrl, '#value:not(:empty)', true));
+    }
+    // Where the time goes, for the visit that took the median time of each kind.
+    for (const [name, visits] of [
+      ['dashboard', dashboard],
+      ['bare page', bare],
+    ] as const) {
+      const middle = visits.find((v) => v.firstValueMs === median(visits.map((d) => d.firstValueMs)))!;
+      console.log(`${name} visit, ${middle.firstValueMs.toFixed(0)} ms to the first value:`);
+      console.log(formatWaterfall(middle.rows));
     }
     return {
       dashboardMs: median(dashboard.map((d) => d.firstValueMs)),
