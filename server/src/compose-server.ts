@@ -1,17 +1,11 @@
 import { EventEmitter } from 'node:events';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import type { Router } from 'express';
 import { createGrantsService } from './access/grants-service';
-import {
-  createAccessRequestsRoutes,
-  createSystemShareRoutes,
-} from './access-requests/access-requests-routes';
 import { createAccessRequestsService } from './access-requests/access-requests-service';
 import { createShareCodeLimits } from './access-requests/share-code-limits';
 import { createAccountsComponent } from './accounts/accounts-component';
 import { createAlertsComponent } from './alerts/alerts-component';
-import { createAlertsRoutes } from './alerts/alerts-routes';
 import { createApp } from './app';
 import { createAuditService } from './audit/audit-service';
 import { startBatteryHealth } from './battery-health/battery-health-component';
@@ -28,16 +22,13 @@ import { createInstallRegisterComponent } from './install-register/install-regis
 import { createInstallerComponent } from './installer/installer-component';
 import type { Logger } from './logger';
 import type { MailCatcher } from './mail/mail-catcher';
-import { createMailOutboxRoutes } from './mail/mail-routes';
-import { createHandoverRoutes, createOnboardingRoutes } from './onboarding/onboarding-routes';
 import { createOnboardingService } from './onboarding/onboarding-service';
 import { createRepositories, openStores } from './open-stores';
 import { createPublicAddresses } from './public-addresses';
-import { createPreferencesRoutes, createSettingsRoutes } from './settings/settings-routes';
+import { createRoutesTable } from './routes-table';
 import { createSettingsService } from './settings/settings-service';
 import { attachLiveStream } from './stream/live-stream-server';
 import { createSystemsService } from './systems/systems-service';
-import { createReadingsCsvRoutes } from './telemetry/readings-csv-routes';
 import { createReadingsCsvService } from './telemetry/readings-csv-service';
 import { createReadingsHub } from './telemetry/readings-hub';
 import { createReadingsService } from './telemetry/readings-service';
@@ -122,6 +113,7 @@ export async function startServer(
     onAccessRevoked: accessChanged,
   });
   const readings = createReadingsService({ systems, repository: repositories.readings, audit, now });
+  const readingsCsv = createReadingsCsvService({ systems, repository: repositories.readings, audit, now });
   const alerting = createAlertsComponent({
     repository: repositories.alerts,
     settings: repositories.settings,
@@ -240,59 +232,44 @@ export async function startServer(
   });
   addresses.brokerListening(broker.port);
 
-  // Every router the components add, in one place (accounts, systems, readings, grants, devices and audit are
-  // the app's own). Under /api/systems, in this order:
-  const systemRouters: Router[] = [
-    createReadingsCsvRoutes(
-      createReadingsCsvService({ systems, repository: repositories.readings, audit, now }),
-    ),
-    createAlertsRoutes({
-      alerts: alerting.alerts,
-      systems,
-      analytics: alerting.analytics,
-      monitors: (systemId) => repositories.devices.monitorsWithLatest(systemId),
-    }),
-    createSettingsRoutes(settings),
-    installer.routes,
-    installRegister.routes,
-    createOnboardingRoutes(onboarding),
-    createSystemShareRoutes(accessRequests),
-    batteryHealth.routes,
-  ];
-  // Signed-in routers by path.
-  const signedInRouters: Record<string, Router> = {
-    '/api/me': createPreferencesRoutes(settings),
-    // Each person sees only the captured mail addressed to them; with a real SMTP service the list is empty.
-    '/api/dev/mail': createMailOutboxRoutes(mailCatcher),
-    '/api/handovers': createHandoverRoutes(onboarding),
-    '/api/access-requests': createAccessRequestsRoutes(accessRequests),
-  };
   const app = createApp({
-    sequelize,
     logger,
-    jwtSecret: config.JWT_SECRET,
-    accountsRepository: repositories.accounts,
-    ...people,
     trustProxy: config.TRUST_PROXY,
-    signInLimits: {
-      perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
-      perAccountGlobal: config.SIGN_IN_LIMIT_PER_ACCOUNT_GLOBAL,
-      perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
-      windowSeconds: config.SIGN_IN_LIMIT_WINDOW_SECONDS,
-      store: cluster?.signInStore,
-    },
-    systems,
-    grants,
-    devices,
-    audit,
-    readings,
-    ingest,
-    signedInRouters,
-    systemRouters,
     corsOrigins: config.CORS_ORIGINS.split(',')
       .map((o) => o.trim())
       .filter(Boolean),
     webDist: config.WEB_DIST,
+    // Every API router in one table, in mounting order (routes-table.ts).
+    routes: createRoutesTable({
+      sequelize,
+      jwtSecret: config.JWT_SECRET,
+      signInLimits: {
+        perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
+        perAccountGlobal: config.SIGN_IN_LIMIT_PER_ACCOUNT_GLOBAL,
+        perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
+        windowSeconds: config.SIGN_IN_LIMIT_WINDOW_SECONDS,
+        store: cluster?.signInStore,
+      },
+      people,
+      accountsRepository: repositories.accounts,
+      systems,
+      grants,
+      devices,
+      audit,
+      readings,
+      readingsCsv,
+      alerting,
+      monitors: (systemId) => repositories.devices.monitorsWithLatest(systemId),
+      settings,
+      onboarding,
+      accessRequests,
+      componentRouters: {
+        installer: installer.routes,
+        installRegister: installRegister.routes,
+        batteryHealth: batteryHealth.routes,
+      },
+      mailCatcher,
+    }),
   });
   const http = createServer(app);
   http.on('clientError', (_error, socket) => socket.destroy());
