@@ -9,14 +9,7 @@ import {
   untracked,
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatCheckboxModule } from '@angular/material/checkbox';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
-import { MatSelectModule } from '@angular/material/select';
 import type { RegisterCircuit, RegisterComponent } from '@cellwarden/shared';
-import { apiProblem } from '../../core/api-error';
 import { TemperatureUnit, inUnit, toCelsius } from '../../core/temperature-unit';
 import {
   AWG_CHOICES,
@@ -26,19 +19,13 @@ import {
   readCircuitForm,
 } from '../circuit-form-model';
 import { InstallRegisterApi } from '../install-register-api';
+import { REGISTER_FORM_IMPORTS, fieldError, saveWithFieldErrors } from '../register-form';
 
 /** Adds a circuit to the register, or edits the one given; the server answers with its verdict. */
 @Component({
   selector: 'cw-circuit-editor',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [
-    ReactiveFormsModule,
-    MatFormFieldModule,
-    MatInputModule,
-    MatSelectModule,
-    MatCheckboxModule,
-    MatButtonModule,
-  ],
+  imports: [REGISTER_FORM_IMPORTS],
   templateUrl: './circuit-editor.html',
   styleUrl: '../register-form.scss',
 })
@@ -80,31 +67,19 @@ export class CircuitEditor {
   }
 
   protected save(): void {
-    this.form.markAllAsTouched();
-    if (this.form.invalid || this.saving()) return;
-    this.saving.set(true);
-    this.problem.set(null);
-    const wiring = readCircuitForm(this.form, this.unit());
-    this.api.saveCircuit(this.systemId(), wiring, this.editing()?.id).subscribe({
-      next: (circuit) => {
-        this.saving.set(false);
-        this.form.reset();
-        this.saved.emit(circuit);
+    saveWithFieldErrors(
+      this.form,
+      { saving: this.saving, problem: this.problem },
+      {
+        request: () =>
+          this.api.saveCircuit(this.systemId(), readCircuitForm(this.form, this.unit()), this.editing()?.id),
+        controlFor: (field) => controlPathOf(field, this.form.controls.conductorKind.value),
+        saved: (circuit) => {
+          this.form.reset();
+          this.saved.emit(circuit);
+        },
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        const problem = apiProblem(error);
-        const path = problem.field
-          ? controlPathOf(problem.field, this.form.controls.conductorKind.value)
-          : null;
-        const control = path ? this.form.get(path) : null;
-        if (control) {
-          control.setErrors({ server: problem.message });
-          control.markAsTouched();
-        }
-        this.problem.set(problem.message);
-      },
-    });
+    );
   }
 
   protected cancel(): void {
@@ -113,14 +88,7 @@ export class CircuitEditor {
   }
 
   protected errorOf(name: string, label: string): string | null {
-    const control = this.form.get(name);
-    if (!control || !control.touched || control.valid) return null;
-    if (control.hasError('server')) return control.getError('server');
-    if (control.hasError('required')) return `${label} is required.`;
-    if (control.hasError('min')) return `${label} must be at least ${control.getError('min').min}.`;
-    if (control.hasError('max')) return `${label} must be at most ${control.getError('max').max}.`;
-    if (control.hasError('maxlength')) return `${label} is too long.`;
-    return `${label} is not valid.`;
+    return fieldError(this.form, name, label);
   }
 
   /** An insulation rating in the person's unit (the rating itself is named in °C on the cable). */

@@ -9,15 +9,9 @@ import {
   untracked,
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatCheckboxModule } from '@angular/material/checkbox';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
-import { MatSelectModule } from '@angular/material/select';
 import type { ComponentKind, RegisterComponent } from '@cellwarden/shared';
-import { apiProblem } from '../../core/api-error';
 import { InstallRegisterApi } from '../install-register-api';
+import { REGISTER_FORM_IMPORTS, fieldError, saveWithFieldErrors } from '../register-form';
 import { componentForm, fillComponentForm, readComponentForm, showKind } from '../component-form-model';
 
 // Fields the form asks for in per cent, under another name than the API's.
@@ -27,14 +21,7 @@ const RENAMED: Record<string, string> = { efficiency: 'efficiencyPercent', dutyC
 @Component({
   selector: 'cw-component-editor',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [
-    ReactiveFormsModule,
-    MatFormFieldModule,
-    MatInputModule,
-    MatSelectModule,
-    MatCheckboxModule,
-    MatButtonModule,
-  ],
+  imports: [REGISTER_FORM_IMPORTS],
   templateUrl: './component-editor.html',
   styleUrl: '../register-form.scss',
 })
@@ -70,29 +57,23 @@ export class ComponentEditor {
   }
 
   protected save(): void {
-    this.form.markAllAsTouched();
-    if (this.form.invalid || this.saving()) return;
-    this.saving.set(true);
-    this.problem.set(null);
-    this.api.saveComponent(this.systemId(), readComponentForm(this.form), this.editing()?.id).subscribe({
-      next: (component) => {
-        this.saving.set(false);
-        this.resetForm();
-        this.saved.emit(component);
-      },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        const problem = apiProblem(error);
+    saveWithFieldErrors(
+      this.form,
+      { saving: this.saving, problem: this.problem },
+      {
+        request: () =>
+          this.api.saveComponent(this.systemId(), readComponentForm(this.form), this.editing()?.id),
         // The server names the field (`ratings.capacityAh`): show its words under that control when there is one.
-        const field = problem.field?.replace(/^ratings\./, '');
-        const control = field ? this.form.get(RENAMED[field] ?? field) : null;
-        if (control) {
-          control.setErrors({ server: problem.message });
-          control.markAsTouched();
-        }
-        this.problem.set(problem.message);
+        controlFor: (field) => {
+          const name = field.replace(/^ratings\./, '');
+          return RENAMED[name] ?? name;
+        },
+        saved: (component) => {
+          this.resetForm();
+          this.saved.emit(component);
+        },
       },
-    });
+    );
   }
 
   protected cancel(): void {
@@ -101,16 +82,12 @@ export class ComponentEditor {
   }
 
   protected errorOf(name: string, label: string): string | null {
-    const control = this.form.get(name);
-    if (!control || !control.touched || control.valid) return null;
-    if (control.hasError('server')) return control.getError('server');
-    if (control.hasError('required')) return `${label} is required.`;
-    if (control.hasError('min')) return `${label} must be at least ${control.getError('min').min}.`;
-    if (control.hasError('max')) return `${label} must be at most ${control.getError('max').max}.`;
-    if (control.hasError('pattern'))
-      return `${label}: lower-case letters, digits and dashes, as the monitor reports it.`;
-    if (control.hasError('maxlength')) return `${label} is too long.`;
-    return `${label} is not valid.`;
+    return fieldError(
+      this.form,
+      name,
+      label,
+      'lower-case letters, digits and dashes, as the monitor reports it',
+    );
   }
 
   protected readonly kinds: { value: ComponentKind; label: string }[] = [
