@@ -16,6 +16,7 @@ import { DateTimePipe } from '../../core/date-time-pipe';
 import { TemperaturePipe } from '../../core/temperature-pipe';
 import { serverErrorOf, showServerError } from '../../core/api-error';
 import { OnboardingApi } from '../../core/onboarding-api';
+import { CredentialList, type CredentialRow } from '../../core/credential-list/credential-list';
 import { monitorWords } from './monitor-words';
 
 /** How often the waiting screen asks whether the first reading has come. */
@@ -37,6 +38,7 @@ const STATUS_POLL_MS = 2000;
     DecimalPipe,
     DateTimePipe,
     TemperaturePipe,
+    CredentialList,
   ],
   templateUrl: './monitor-setup.html',
   styleUrl: './monitor-setup.scss',
@@ -59,7 +61,7 @@ export class MonitorSetup {
   /** The credentials, held only while this screen is open: the server never sends the secret again. */
   protected readonly credentials = signal<DeviceCredentials | null>(null);
 
-  protected readonly rows = computed(() => {
+  protected readonly rows = computed<CredentialRow[]>(() => {
     const c = this.credentials();
     if (!c) return [];
     return [
