@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { parseNamingEveryField } from '../onboarding/every-field';
 import type { AccessRequestsService } from './access-requests-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const note = z
   .string({ error: 'note must be text' })
@@ -69,7 +70,7 @@ export function createAccessRequestsRoutes(requests: AccessRequestsService): Rou
 
 /** Under /api/systems: the owner's share codes and one system's pending requests. */
 export function createSystemShareRoutes(requests: AccessRequestsService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.post('/:systemId/share-codes', async (req, res) => {
     res.status(201).json(await requests.createShareCode(req.currentUser!, req.params.systemId));
   });

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import type { GrantsService } from './grants-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const grantBody = z
   .object({
@@ -24,7 +25,7 @@ const grantBody = z
 
 /** Grants on one system (owner) under /api/systems. */
 export function createGrantsRoutes(grants: GrantsService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/grants', async (req, res) => {
     res.json({ grants: await grants.list(req.currentUser!, req.params.systemId) });
   });

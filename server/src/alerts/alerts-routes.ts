@@ -1,10 +1,11 @@
-import { Router } from 'express';
+import type { Router } from 'express';
 import { z } from 'zod';
 import type { MonitorLatest, SystemStatus } from '@cellwarden/shared';
 import type { SystemsService } from '../systems/systems-service';
 import { queryTimeSchema } from '../telemetry/query-time';
 import type { AlertsService } from './alerts-service';
 import type { LiveAnalytics } from './live-analytics';
+import { createSystemRouter } from '../systems/system-router';
 
 const DAY_MS = 24 * 3600_000;
 const alertsQuery = z.object({
@@ -28,7 +29,7 @@ export function createAlertsRoutes(deps: {
   /** The system's monitors with their newest readings, lead first. */
   monitors: (systemId: string) => Promise<MonitorLatest[]>;
 }): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/alerts', async (req, res) => {
     const query = alertsQuery.parse(req.query);
     const to = query.to ?? new Date();

@@ -1,7 +1,8 @@
-import { Router } from 'express';
+import type { Router } from 'express';
 import { z } from 'zod';
 import { epochMsSchema } from '@cellwarden/shared';
 import type { AuditService } from './audit-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const auditQuery = z.object({
   limit: z.coerce.number({ error: 'limit must be a number' }).int().min(1).max(500).optional(),
@@ -10,7 +11,7 @@ const auditQuery = z.object({
 
 /** GET /api/systems/:systemId/audit. */
 export function createAuditRoutes(audit: AuditService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/audit', async (req, res) => {
     const query = auditQuery.parse(req.query);
     res.json({ entries: await audit.list(req.currentUser!, req.params.systemId, query) });

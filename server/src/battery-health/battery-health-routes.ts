@@ -1,5 +1,5 @@
 import type { Request } from 'express';
-import { Router } from 'express';
+import type { Router } from 'express';
 import { z } from 'zod';
 import { HEALTH_REPORT_MAX_DAYS } from '@cellwarden/shared';
 import { invalidInput } from '../errors/app-error';
@@ -7,6 +7,7 @@ import { queryTimeSchema } from '../telemetry/query-time';
 import type { BatteryHealthService } from './battery-health-service';
 import { healthReportCsv } from './health-report-csv';
 import type { HealthReportRenderer } from './health-report-renderer';
+import { createSystemRouter } from '../systems/system-router';
 
 // A BCP 47 tag as Intl understands it; anything else is refused with the field named, never passed on.
 const localeSchema = z
@@ -56,7 +57,7 @@ export function createBatteryHealthRoutes(deps: {
   health: BatteryHealthService;
   renderer: HealthReportRenderer;
 }): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/battery-health', async (req, res) => {
     const { locale, unit } = overviewQuery.parse(req.query);
     res.json(await deps.health.overview(req.currentUser!, req.params.systemId, localeOf(req, locale), unit));

@@ -1,6 +1,7 @@
-import { Router } from 'express';
+import type { Router } from 'express';
 import { z } from 'zod';
 import { DEVICE_ID_PATTERN, type DevicesService } from './devices-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const deviceBody = z.object({
   id: z
@@ -19,7 +20,7 @@ const deviceBody = z.object({
 
 /** Devices of one system under /api/systems. */
 export function createDevicesRoutes(devices: DevicesService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/devices', async (req, res) => {
     res.json({ devices: await devices.list(req.currentUser!, req.params.systemId) });
   });

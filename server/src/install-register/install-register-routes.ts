@@ -1,10 +1,11 @@
-import { Router } from 'express';
+import type { Router } from 'express';
 import { z } from 'zod';
 import { AWG_SIZES, type CircuitWiring, type ComponentRatings } from '@cellwarden/shared';
 import { invalidInput } from '../errors/app-error';
 import type { DesignVsMeasuredService } from './design-vs-measured-service';
 import { DEFAULT_WINDOW_DAYS, MAX_WINDOW_DAYS } from './design-vs-measured-service';
 import type { InstallRegisterService } from './install-register-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const num = (field: string, min: number, max: number, unit = '') =>
   z
@@ -127,7 +128,7 @@ export function createInstallRegisterRoutes(deps: {
   register: InstallRegisterService;
   measured: DesignVsMeasuredService;
 }): Router {
-  const router = Router();
+  const router = createSystemRouter();
   const base = '/:systemId/install';
   router.get(base, async (req, res) => {
     res.json({ register: await deps.register.get(req.currentUser!, req.params.systemId) });

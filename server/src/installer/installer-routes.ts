@@ -1,4 +1,4 @@
-import { Router, type RequestHandler } from 'express';
+import { type Router, type RequestHandler } from 'express';
 import { z } from 'zod';
 import type { EnergyBudgetInput } from '@cellwarden/shared';
 import { uploadDownloadHeaders } from '../uploads/upload-download-headers';
@@ -6,6 +6,7 @@ import type { CommissioningRecordService } from './commissioning-record-service'
 import type { CommissioningService } from './commissioning-service';
 import type { EnergyBudgetsService } from './energy-budgets-service';
 import type { UploadsService } from './uploads-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const optionalPositive = (field: string, max: number) =>
   z
@@ -79,7 +80,7 @@ export function createInstallerRoutes(deps: {
   budgets: EnergyBudgetsService;
   uploadMiddleware: RequestHandler;
 }): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.post('/:systemId/commissioning-checks', async (req, res) => {
     const body = checkBody.parse(req.body ?? {});
     res.status(201).json({ check: await deps.checks.start(req.currentUser!, req.params.systemId, body) });

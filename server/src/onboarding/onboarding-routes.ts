@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { isKnownTimeZone } from '../settings/utc-offset';
 import { parseNamingEveryField } from './every-field';
 import type { OnboardingService } from './onboarding-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const amps = (field: string) =>
   z
@@ -66,7 +67,7 @@ const newSystemBody = z
 
 /** POST /api/systems, DELETE /api/systems/:id/installer, GET /api/systems/:id/devices/:deviceId/status. */
 export function createOnboardingRoutes(onboarding: OnboardingService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.post('/', async (req, res) => {
     const body = parseNamingEveryField(newSystemBody, req.body);
     res.status(201).json(await onboarding.create(req.currentUser!, body));

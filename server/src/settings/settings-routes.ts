@@ -3,6 +3,7 @@ import { FLAG_KINDS } from '@cellwarden/shared';
 import { z } from 'zod';
 import type { SettingsService } from './settings-service';
 import { isKnownTimeZone } from './utc-offset';
+import { createSystemRouter } from '../systems/system-router';
 
 const positive = (field: string, max: number) =>
   z
@@ -82,7 +83,7 @@ const preferencesBody = z.object({
 
 /** GET/PUT /api/systems/:systemId/settings. */
 export function createSettingsRoutes(settings: SettingsService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/settings', async (req, res) => {
     res.json({ settings: await settings.get(req.currentUser!, req.params.systemId) });
   });

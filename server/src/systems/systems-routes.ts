@@ -1,10 +1,11 @@
-import { Router } from 'express';
+import type { Router } from 'express';
 import { SYSTEM_ACTIONS } from '@cellwarden/shared';
 import type { SystemsService } from './systems-service';
+import { createSystemRouter } from './system-router';
 
 /** Systems the signed-in user may see. */
 export function createSystemsRoutes(systems: SystemsService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/', async (req, res) => {
     res.json({ systems: await systems.listFor(req.currentUser!) });
   });

@@ -1,9 +1,10 @@
-import { Router, type ErrorRequestHandler } from 'express';
+import { type Router, type ErrorRequestHandler } from 'express';
 import { z } from 'zod';
 import { AppError, invalidInput } from '../errors/app-error';
 import { queryTimeSchema } from './query-time';
 import { IMPORT_LIMIT_BYTES } from './readings-csv-reader';
 import type { ReadingsCsvService } from './readings-csv-service';
+import { createSystemRouter } from '../systems/system-router';
 
 const MAX_RANGE_MS = 400 * 24 * 3600_000;
 const exportQuery = z.object({ from: queryTimeSchema('from'), to: queryTimeSchema('to') });
@@ -19,7 +20,7 @@ function parseExportRange(query: unknown): { from: Date; to: Date } {
 
 /** GET /api/systems/:systemId/readings.csv and POST /api/systems/:systemId/readings/import (text/csv). */
 export function createReadingsCsvRoutes(csv: ReadingsCsvService): Router {
-  const router = Router();
+  const router = createSystemRouter();
   router.get('/:systemId/readings.csv', async (req, res) => {
     const { from, to } = parseExportRange(req.query);
     const chunks = csv.export(req.currentUser!, req.params.systemId, from, to);
@@ -41,7 +42,9 @@ export function createReadingsCsvRoutes(csv: ReadingsCsvService): Router {
       throw new AppError('file_too_large', 413, 'the file must be at most 16 MB', 'file');
     res.json({ import: await csv.import(req.currentUser!, String(req.params.systemId), req) });
   });
-  router.use('/:systemId/readings/import', discardUnreadBody);
+  // Named apart from :systemId on purpose: Express hands a refused :systemId's error straight past every later
+  // layer that names the same parameter, and a malformed id's 404 needs the body read off too.
+  router.use('/:system/readings/import', discardUnreadBody);
   return router;
 }
 
