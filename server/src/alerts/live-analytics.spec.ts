@@ -27,9 +27,13 @@ const reading = (measuredAt: number): BatteryReading => ({
   stateOfCharge: 70,
 });
 
-/** Settings for one system, a lead monitor, stored readings for replays and quiet systems; alerts kept. */
+/** Settings for one system (or the given ones), a lead monitor, stored readings for replays and quiet systems; alerts kept. */
 function fakes(
-  options: { lead?: string | null; quiet?: { receivedAt: number; reading: BatteryReading }[] } = {},
+  options: {
+    lead?: string | null;
+    quiet?: { systemId?: string; receivedAt: number; reading: BatteryReading }[];
+    systems?: Map<string, StoredSettings>;
+  } = {},
 ) {
   let now = START;
   const recorded: {
@@ -39,11 +43,16 @@ function fakes(
   }[] = [];
   const replaySpans: { systemId: string; from: number; to: number; deviceId?: string }[] = [];
   const quietAsked: number[] = [];
-  const settingsRepository: Pick<SettingsRepository, 'find'> = {
-    find: async (systemId) => (systemId === VAN ? settings : undefined),
+  const settingsQueries: string[][] = [];
+  const systems = options.systems ?? new Map([[VAN, settings]]);
+  const settingsRepository: Pick<SettingsRepository, 'findMany'> = {
+    async findMany(systemIds) {
+      settingsQueries.push([...systemIds]);
+      return new Map(systemIds.filter((id) => systems.has(id)).map((id) => [id, systems.get(id)!]));
+    },
   };
-  const readings: Pick<ReadingsRepository, 'leadMonitor' | 'listRaw' | 'quietSystems'> = {
-    leadMonitor: async () => options.lead ?? null,
+  const readings: Pick<ReadingsRepository, 'leadMonitors' | 'listRaw' | 'quietSystems'> = {
+    leadMonitors: async (systemIds) => new Map(systemIds.map((id) => [id, options.lead ?? null])),
     async listRaw(systemId, from, to, deviceId) {
       replaySpans.push({ systemId, from: from.getTime(), to: to.getTime(), deviceId });
       return [];
@@ -73,11 +82,14 @@ function fakes(
     recorded,
     replaySpans,
     quietAsked,
+    settingsQueries,
+    systems,
     advance: (ms: number) => (now += ms),
   };
 }
 
-beforeEach(() => jest.useFakeTimers({ now: START }));
+// The replay timers are faked; process.nextTick is not: the settings loader gathers a turn's loads into one batch on it.
+beforeEach(() => jest.useFakeTimers({ now: START, doNotFake: ['nextTick'] }));
 afterEach(() => jest.useRealTimers());
 
 describe('live analytics', () => {
@@ -158,5 +170,90 @@ describe('live analytics', () => {
     await analytics.process([{ systemId: VAN, deviceId: 'm', reading: reading(START) }]);
     await analytics.sweepSilence();
     expect(recorded.flatMap((r) => r.events).filter((e) => e.kind === 'device-silent')).toEqual([]);
+  });
+
+  describe('loading settings', () => {
+    const row = (systemId: string, t: number) => ({
+      systemId,
+      deviceId: `${systemId}-m`,
+      reading: reading(t),
+    });
+    const fleet = (count: number) =>
+      new Map(Array.from({ length: count }, (_, i) => [`system-${i}`, settings]));
+
+    it('loads a fleet reporting its first readings at once in batched queries, not one per system', async () => {
+      const systems = fleet(1200);
+      const { analytics, settingsQueries } = fakes({ systems });
+      // As the after-commit fan-out hands them over: each reading on its own, all in the same turn.
+      const first = await Promise.all(
+        [...systems.keys()].map(async (id) => (await analytics.process([row(id, START)]))[0]),
+      );
+      expect(settingsQueries.map((ids) => ids.length)).toEqual([500, 500, 200]);
+      expect(first.every((derived) => derived !== null)).toBe(true);
+      // The next readings run on what was loaded.
+      await Promise.all([...systems.keys()].map((id) => analytics.process([row(id, START + 1000)])));
+      expect(settingsQueries).toHaveLength(3);
+    });
+
+    it('runs the readings after a change through the settings API on the changed settings', async () => {
+      const { analytics, systems, settingsQueries, recorded, advance } = fakes();
+      await analytics.process([row(VAN, START)]);
+      systems.set(VAN, { ...settings, thresholds: { silentAfterMinutes: 5 } });
+      await analytics.process([row(VAN, START + 1000)]);
+      // Nobody said they changed: the loaded settings stand.
+      expect(settingsQueries).toHaveLength(1);
+      analytics.settingsChanged(VAN);
+      await analytics.process([row(VAN, START + 2000)]);
+      expect(settingsQueries).toHaveLength(2);
+      advance(6 * MINUTE);
+      await analytics.sweepSilence();
+      // Quiet for 6 minutes: past the changed 5, short of the former 15.
+      expect(recorded.flatMap((r) => r.events)).toEqual([
+        expect.objectContaining({ kind: 'device-silent', transition: 'start' }),
+      ]);
+    });
+
+    it('asks again when the settings changed while their load was under way', async () => {
+      const { analytics, settingsQueries } = fakes();
+      const first = analytics.process([row(VAN, START)]);
+      analytics.settingsChanged(VAN);
+      await first;
+      await analytics.process([row(VAN, START + 1000)]);
+      expect(settingsQueries).toHaveLength(2);
+      await analytics.process([row(VAN, START + 2000)]);
+      expect(settingsQueries).toHaveLength(2);
+    });
+
+    it('loses only the readings of a system whose stored settings cannot be resolved', async () => {
+      const systems = fleet(3);
+      systems.set('system-1', { ...settings, timeZone: 'Mars/Olympus_Mons' });
+      const { analytics, settingsQueries } = fakes({ systems });
+      const derived = await analytics.process([
+        row('system-0', START),
+        row('system-1', START),
+        row('system-2', START),
+      ]);
+      expect(settingsQueries).toHaveLength(1);
+      expect(derived.map((d) => d !== null)).toEqual([true, false, true]);
+    });
+
+    it('adopts quiet systems through the same batched loads, and one that fails stops none of the others', async () => {
+      const systems = fleet(3);
+      systems.set('system-1', { ...settings, timeZone: 'Mars/Olympus_Mons' });
+      const quietSince = START - 5 * MINUTE;
+      const { analytics, settingsQueries, recorded, advance } = fakes({
+        systems,
+        quiet: [...systems.keys()].map((systemId) => ({
+          systemId,
+          receivedAt: quietSince,
+          reading: reading(quietSince),
+        })),
+      });
+      await analytics.sweepSilence();
+      expect(settingsQueries).toEqual([['system-0', 'system-1', 'system-2']]);
+      advance(11 * MINUTE);
+      await analytics.sweepSilence();
+      expect(recorded.map((r) => r.systemId).sort()).toEqual(['system-0', 'system-2']);
+    });
   });
 });

@@ -1,18 +1,15 @@
 import {
-  analyticsConfigFromSettings,
   checkSilence,
   deriveSystemState,
   flagEpisodes,
-  resolveSystemAnalyticsSettings,
   type BatteryReading,
   type DerivedState,
-  type SystemAnalyticsSettings,
   type SystemAnalyticsState,
 } from '@cellwarden/shared';
 import type { Logger } from '../logger';
 import type { SettingsRepository } from '../settings/settings-repository';
-import { utcOffsetMinutes } from '../settings/utc-offset';
 import type { ReadingRow, ReadingsRepository } from '../telemetry/readings-repository';
+import { createAnalyticsSettingsLoader, type AnalyticsProfile } from './analytics-settings-loader';
 import type { AlertsRepository } from './alerts-repository';
 import type { AlertsService } from './alerts-service';
 
@@ -24,13 +21,7 @@ const REPLAY_LEAD_MS = 30 * 60_000;
 // Settings are re-read at least this often, so a zone's change to or from summer time reaches the projection.
 const SETTINGS_TTL_MS = 10 * 60_000;
 
-interface SystemRuntime {
-  settings: SystemAnalyticsSettings;
-  loadedAt: number;
-  name: string;
-  timeZone: string;
-  /** The monitor whose readings drive the analytics; the others of the same bank are shown, not estimated. */
-  leadDeviceId: string | null;
+interface SystemRuntime extends AnalyticsProfile {
   state?: SystemAnalyticsState;
   derived?: DerivedState;
   /** Wall-clock arrival of the newest reading, to judge silence on the device's own clock. */
@@ -48,10 +39,10 @@ interface SystemRuntime {
  * keeping each system's small state in memory; flag transitions become alert events.
  */
 export function createLiveAnalytics(deps: {
-  settings: Pick<SettingsRepository, 'find'>;
+  settings: Pick<SettingsRepository, 'findMany'>;
   alerts: Pick<AlertsService, 'record'>;
   /** For replaying a late backlog's span from the stored readings. */
-  readings: Pick<ReadingsRepository, 'leadMonitor' | 'listRaw' | 'quietSystems'>;
+  readings: Pick<ReadingsRepository, 'leadMonitors' | 'listRaw' | 'quietSystems'>;
   alertsRepository: Pick<AlertsRepository, 'insertPastEpisode'>;
   /** Pushes a past alert found in a backlog to the live subscribers. */
   publish: (alert: import('@cellwarden/shared').AlertEvent) => void;
@@ -60,40 +51,39 @@ export function createLiveAnalytics(deps: {
 }) {
   const runtimes = new Map<string, SystemRuntime>();
   const pending = new Map<string, Promise<SystemRuntime | undefined>>();
+  /** How often each system's settings were changed, to tell a load that began before a change. */
+  const changes = new Map<string, number>();
+  const loadProfile = createAnalyticsSettingsLoader({
+    settings: deps.settings,
+    readings: deps.readings,
+    now: deps.now,
+  });
 
-  async function load(systemId: string, previous?: SystemRuntime): Promise<SystemRuntime | undefined> {
-    const [stored, leadDeviceId] = await Promise.all([
-      deps.settings.find(systemId),
-      deps.readings.leadMonitor(systemId),
-    ]);
-    if (!stored) return undefined;
-    const now = deps.now();
-    const config = analyticsConfigFromSettings(stored as never, utcOffsetMinutes(stored.timeZone, now));
-    return {
-      settings: resolveSystemAnalyticsSettings(config),
-      loadedAt: now,
-      name: stored.name,
-      timeZone: stored.timeZone,
-      leadDeviceId,
-      state: previous?.state,
-      derived: previous?.derived,
-      lastReceivedAt: previous?.lastReceivedAt,
-      lastMeasuredAt: previous?.lastMeasuredAt,
-      queue: previous?.queue ?? Promise.resolve(),
-    };
+  async function load(systemId: string): Promise<SystemRuntime | undefined> {
+    const changesBefore = changes.get(systemId);
+    const profile = await loadProfile(systemId);
+    if (!profile) return undefined;
+    const existing = runtimes.get(systemId);
+    // Refreshed in place: readings queued on this runtime step the same state; a pending replay keeps its timer.
+    const runtime: SystemRuntime = existing
+      ? Object.assign(existing, profile)
+      : { ...profile, queue: Promise.resolve() };
+    // Changed while this load was under way: it may have read the old settings; the next reading asks again.
+    if (changes.get(systemId) !== changesBefore) runtime.loadedAt = 0;
+    runtimes.set(systemId, runtime);
+    return runtime;
   }
 
-  async function runtimeFor(systemId: string): Promise<SystemRuntime | undefined> {
+  /** A system's runtime; loads for many systems asked in the same turn share one batched query. */
+  function runtimeFor(systemId: string): Promise<SystemRuntime | undefined> {
     const existing = runtimes.get(systemId);
-    if (existing && deps.now() - existing.loadedAt < SETTINGS_TTL_MS) return existing;
-    if (!pending.has(systemId))
-      pending.set(
-        systemId,
-        load(systemId, existing).finally(() => pending.delete(systemId)),
-      );
-    const loaded = await pending.get(systemId)!;
-    if (loaded) runtimes.set(systemId, loaded);
-    return loaded;
+    if (existing && deps.now() - existing.loadedAt < SETTINGS_TTL_MS) return Promise.resolve(existing);
+    let loading = pending.get(systemId);
+    if (!loading) {
+      loading = load(systemId).finally(() => pending.delete(systemId));
+      pending.set(systemId, loading);
+    }
+    return loading;
   }
 
   function step(runtime: SystemRuntime, systemId: string, reading: BatteryReading) {
@@ -147,16 +137,23 @@ export function createLiveAnalytics(deps: {
   let adoptedQuiet = false;
   async function adoptQuietSystems(): Promise<void> {
     const quiet = await deps.readings.quietSystems(new Date(deps.now() - 60_000));
-    for (const { systemId, receivedAt, reading } of quiet) {
-      if (runtimes.get(systemId)?.state) continue;
-      const runtime = await runtimeFor(systemId);
-      if (!runtime || runtime.state) continue;
-      const result = deriveSystemState(undefined, reading, runtime.settings);
-      runtime.state = result.state;
-      runtime.derived = result.derived;
-      runtime.lastReceivedAt = receivedAt;
-      runtime.lastMeasuredAt = reading.measuredAt;
-    }
+    // All asked at once, so their settings arrive through the same batched loads as the readings' systems.
+    await Promise.all(
+      quiet.map(async ({ systemId, receivedAt, reading }) => {
+        if (runtimes.get(systemId)?.state) return;
+        try {
+          const runtime = await runtimeFor(systemId);
+          if (!runtime || runtime.state) return;
+          const result = deriveSystemState(undefined, reading, runtime.settings);
+          runtime.state = result.state;
+          runtime.derived = result.derived;
+          runtime.lastReceivedAt = receivedAt;
+          runtime.lastMeasuredAt = reading.measuredAt;
+        } catch (error) {
+          deps.logger.warn('quiet system not adopted', { systemId, error: (error as Error).message });
+        }
+      }),
+    );
   }
 
   return {
@@ -227,6 +224,7 @@ export function createLiveAnalytics(deps: {
 
     /** Forgets a system's cached settings after they changed. */
     settingsChanged(systemId: string) {
+      changes.set(systemId, (changes.get(systemId) ?? 0) + 1);
       const runtime = runtimes.get(systemId);
       if (runtime) runtime.loadedAt = 0;
     },

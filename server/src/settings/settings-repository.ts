@@ -7,6 +7,7 @@ import {
   type UserPreferences,
 } from '@cellwarden/shared';
 import { initModels } from '../database/models';
+import { isUuid } from '../database/sql-values';
 
 /** A system's settings as stored; thresholds hold only what the owner overrode. */
 export interface StoredSettings extends Omit<SystemSettings, 'thresholds' | 'thresholdDefaults'> {
@@ -64,16 +65,30 @@ const SETTINGS_ATTRIBUTES = [
 /** Data access for system settings and personal preferences. */
 export function createSettingsRepository(sequelize: Sequelize) {
   const { UserPreference, System } = initModels(sequelize);
+  const fromRow = (row: InstanceType<typeof System>): StoredSettings =>
+    toSettings({
+      ...row,
+      continuousDischargeA: row.bmsContinuousDischargeA ?? null,
+      lowVoltageCutoffV: row.bmsLowVoltageCutoffV ?? null,
+      thresholds: row.flagThresholds,
+    });
   return {
     async find(systemId: string): Promise<StoredSettings | undefined> {
       const row = await System.findByPk(systemId, { attributes: SETTINGS_ATTRIBUTES, raw: true });
-      if (!row) return undefined;
-      return toSettings({
-        ...row,
-        continuousDischargeA: row.bmsContinuousDischargeA ?? null,
-        lowVoltageCutoffV: row.bmsLowVoltageCutoffV ?? null,
-        thresholds: row.flagThresholds,
+      return row ? fromRow(row) : undefined;
+    },
+
+    /** Many systems' settings in one query, by system id; a system that no longer exists is absent. */
+    async findMany(systemIds: readonly string[]): Promise<Map<string, StoredSettings>> {
+      // An id that is no uuid names no system, and would fail the whole query.
+      const ids = systemIds.filter(isUuid);
+      if (ids.length === 0) return new Map();
+      const rows = await System.findAll({
+        where: { id: ids },
+        attributes: ['id', ...SETTINGS_ATTRIBUTES],
+        raw: true,
       });
+      return new Map(rows.map((row) => [row.id, fromRow(row)]));
     },
 
     async update(systemId: string, settings: StoredSettings): Promise<void> {

@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { BatteryReading, HistoryPoint } from '@cellwarden/shared';
+import { isUuid } from '../database/sql-values';
 import { LEAD_MONITOR_SQL } from './lead-monitor';
 import { INSERT_READINGS_WITH_ROLLUPS, LOCK_SYSTEMS, MAX_INTEGRATION_GAP_SECONDS } from './rollups-sql';
 
@@ -140,16 +141,20 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
       }));
     },
 
-    /** The monitor a system's headline and analytics follow (see lead-monitor.ts); null when it has none. */
-    async leadMonitor(systemId: string): Promise<string | null> {
-      const [row] = await sequelize.query<{ id: string | null }>(
-        `SELECT ${LEAD_MONITOR_SQL(':systemId')} AS id`,
-        {
-          replacements: { systemId },
-          type: QueryTypes.SELECT,
-        },
+    /**
+     * The monitor each system's headline and analytics follow (see lead-monitor.ts), in one query; null for a
+     * system without one, absent for a system that no longer exists.
+     */
+    async leadMonitors(systemIds: readonly string[]): Promise<Map<string, string | null>> {
+      // An id that is no uuid names no system, and would fail the whole query.
+      const ids = systemIds.filter(isUuid);
+      if (ids.length === 0) return new Map();
+      const rows = await sequelize.query<{ systemId: string; leadDeviceId: string | null }>(
+        `SELECT s.id AS "systemId", ${LEAD_MONITOR_SQL('s.id')} AS "leadDeviceId"
+         FROM systems s WHERE s.id IN (:systemIds)`,
+        { replacements: { systemIds: ids }, type: QueryTypes.SELECT },
       );
-      return row?.id ?? null;
+      return new Map(rows.map((row) => [row.systemId, row.leadDeviceId]));
     },
 
     /** Raw readings of one system in [from, to), oldest first; of one of its monitors when `deviceId` is given. */
