@@ -1,11 +1,13 @@
 // The bench itself (run through `npm run bench`, which provides the cluster): ceilings and product side by side.
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync } from 'node:fs';
+import { cpus } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { migrateToLatest } from '../db/migrator';
 import { seedDemoScenario } from '../db/seeders/demo-scenario';
 import { connectDatabase } from '../server/src/database/connect-database';
+import { cpuMeter, postmasterPid } from './cpu-meter';
 import { copyCeiling, insertCeiling, productStorage, syntheticRows } from './database-ceilings';
 import { timeBatteryHealth } from './battery-health-timing';
 import { timeDashboard } from './dashboard-timing';
@@ -76,29 +78,64 @@ async function startBareBroker() {
   );
   return {
     url: `mqtt://127.0.0.1:${port}`,
+    pid: child.pid!,
     stop: () => new Promise((resolve) => child.once('exit', resolve).kill('SIGTERM')),
   };
 }
 
-async function backlogRun(brokerUrl: string, monitors: Monitor[], start: number) {
+async function backlogRun(
+  brokerUrl: string,
+  monitors: Monitor[],
+  start: number,
+  meter: ReturnType<typeof cpuMeter>,
+) {
   const fleet = await connectFleet(brokerUrl, monitors, quick ? 2000 : Math.max(2000, monitors.length * 10));
   const connectMs = await fleet.allConnected(120_000);
   const packs = quick ? 10 : monitors.length >= 1000 ? 6 : 30;
+  meter.start();
   const result = await sendBacklog(fleet, monitors, { packs, packSize: 10, window: 4, start });
+  const cpu = meter.stop();
   const disconnects = fleet.disconnects();
   await fleet.close();
-  return { ...result, connectMs, disconnects };
+  return { ...result, connectMs, disconnects, cpu };
+}
+
+/** CPU per 1,000 readings by party, and the rate the machine's cores would allow at that cost. */
+function cpuRow(cpu: Record<string, number>, readings: number) {
+  const perThousand = Object.fromEntries(Object.entries(cpu).map(([k, ms]) => [k, (ms * 1000) / readings]));
+  const total = Object.values(perThousand).reduce((a, b) => a + b, 0);
+  return {
+    what: '  … CPU per 1,000 readings',
+    value: Object.entries(perThousand)
+      .map(([k, ms]) => `${k} ${ms.toFixed(0)} ms`)
+      .join(', '),
+    against: `${cpus().length} cores`,
+    ratio: `≤ ${Math.round((cpus().length * 1000 * 1000) / total)} r/s`,
+  };
 }
 
 async function endToEnd(product: ProductNode, monitors: Monitor[], insertCeilingRate: number) {
   const bare = await startBareBroker();
+  const [{ directory }] = await sequelize.query<{ directory: string }>(
+    'SELECT current_setting($1) AS directory',
+    {
+      bind: ['data_directory'],
+      type: QueryTypes.SELECT,
+    },
+  );
+  const bareMeter = cpuMeter({ load: { pid: process.pid }, broker: { pid: bare.pid, withChildren: true } });
+  const productMeter = cpuMeter({
+    load: { pid: process.pid },
+    server: { pid: product.child.pid! },
+    PostgreSQL: { pid: postmasterPid(directory), withChildren: true },
+  });
   try {
     for (const size of quick ? [100] : [100, 1000]) {
       const fleet = monitors.slice(0, size);
       const start = Date.now() - (size === 100 ? 10 : 5) * DAY;
-      const base = await backlogRun(bare.url, fleet, start);
+      const base = await backlogRun(bare.url, fleet, start, bareMeter);
       const before = await countReadings();
-      const run = await backlogRun(product.mqttUrl, fleet, start);
+      const run = await backlogRun(product.mqttUrl, fleet, start, productMeter);
       const stored = (await countReadings()) - before;
       const perSecond = Math.round((run.readings * 1000) / run.ms);
       rows.push(
@@ -108,6 +145,7 @@ async function endToEnd(product: ProductNode, monitors: Monitor[], insertCeiling
           against: '',
           ratio: '',
         },
+        cpuRow(base.cpu, base.readings),
         {
           what: `product end to end, ${size} monitors, QoS 1`,
           value: `${Math.round((run.messages * 1000) / run.ms)} msg/s = ${perSecond} readings/s`,
@@ -120,6 +158,7 @@ async function endToEnd(product: ProductNode, monitors: Monitor[], insertCeiling
           against: 'INSERT',
           ratio: (perSecond / insertCeilingRate).toFixed(2),
         },
+        cpuRow(run.cpu, run.readings),
       );
     }
   } finally {
