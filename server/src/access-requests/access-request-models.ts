@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  Op,
   fn,
   type CreationOptional,
   type ForeignKey,
@@ -13,6 +12,7 @@ import {
 } from 'sequelize';
 import type { OutgoingAccessRequest } from '@cellwarden/shared';
 import type { User } from '../accounts/account-models';
+import { activeAt } from '../database/active-scope';
 
 /** A one-use code an owner hands a support person; stored only as its SHA-256. */
 export class ShareCode extends Model<InferAttributes<ShareCode>, InferCreationAttributes<ShareCode>> {
@@ -71,7 +71,7 @@ export function defineAccessRequestModels(sequelize: Sequelize) {
       whereMergeStrategy: 'and',
       // Judged at the caller's `now` (epoch ms), as the service's clock is.
       scopes: {
-        active: (now: number) => ({ where: { usedAt: null, expiresAt: { [Op.gt]: new Date(now) } } }),
+        active: activeAt('usedAt'),
       },
     },
   );
@@ -102,7 +102,7 @@ export function defineAccessRequestModels(sequelize: Sequelize) {
       whereMergeStrategy: 'and',
       // Pending = not answered and not lapsed, at the caller's `now` (epoch ms).
       scopes: {
-        active: (now: number) => ({ where: { decision: null, expiresAt: { [Op.gt]: new Date(now) } } }),
+        active: activeAt('decision'),
       },
     },
   );

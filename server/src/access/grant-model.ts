@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  Op,
   fn,
   type CreationOptional,
   type ForeignKey,
@@ -14,6 +13,7 @@ import {
 import type { GrantAccess } from '@cellwarden/shared';
 import type { Company, User } from '../accounts/account-models';
 import type { System } from '../systems/system-model';
+import { activeAt } from '../database/active-scope';
 
 /**
  * One grant: to a company, or to a person by address (`granteeUserId` is filled in once that address has an
@@ -62,7 +62,7 @@ export function defineGrantModels(sequelize: Sequelize) {
       scopes: {
         // Judged at the caller's `now` (epoch ms), as the access rule is: the same instant decides every grant
         // of one request, and tests move it.
-        active: (now: number) => ({ where: { revokedAt: null, expiresAt: { [Op.gt]: new Date(now) } } }),
+        active: activeAt('revokedAt'),
       },
     },
   );

@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  Op,
   fn,
   type CreationOptional,
   type ForeignKey,
@@ -13,6 +12,7 @@ import {
 } from 'sequelize';
 import type { Role } from '@cellwarden/shared';
 import type { Company } from './account-models';
+import { activeOnDatabaseClock } from '../database/active-scope';
 
 /** An invitation to sign up (into a company, or as an owner); the link's token only as a hash. */
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
@@ -62,7 +62,7 @@ export function defineLinkModels(sequelize: Sequelize) {
       updatedAt: false,
       whereMergeStrategy: 'and',
       // Open: not yet accepted and not expired (withdrawing one sets its expiry to now).
-      scopes: { active: { where: { acceptedAt: null, expiresAt: { [Op.gt]: fn('now') } } } },
+      scopes: { active: activeOnDatabaseClock('acceptedAt') },
     },
   );
   const BoundPasswordReset = class extends PasswordReset {};
@@ -80,7 +80,7 @@ export function defineLinkModels(sequelize: Sequelize) {
       underscored: true,
       updatedAt: false,
       whereMergeStrategy: 'and',
-      scopes: { active: { where: { usedAt: null, expiresAt: { [Op.gt]: fn('now') } } } },
+      scopes: { active: activeOnDatabaseClock('usedAt') },
     },
   );
   return { Invitation: BoundInvitation, PasswordReset: BoundPasswordReset };

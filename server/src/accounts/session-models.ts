@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  Op,
   fn,
   type CreationOptional,
   type ForeignKey,
@@ -12,6 +11,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { User } from './account-models';
+import { activeOnDatabaseClock } from '../database/active-scope';
 
 /** One sign-in; its id is the refresh-token family id and every access token names it. */
 export class SignInSession extends Model<
@@ -79,7 +79,7 @@ export function defineSessionModels(sequelize: Sequelize) {
       updatedAt: false,
       whereMergeStrategy: 'and',
       // Judged on the database's clock, as every expiry in the schema is.
-      scopes: { active: { where: { revokedAt: null, expiresAt: { [Op.gt]: fn('now') } } } },
+      scopes: { active: activeOnDatabaseClock('revokedAt') },
     },
   );
   return { SignInSession: BoundSession, RefreshToken: BoundRefreshToken };

@@ -1,7 +1,7 @@
 // The one place the Sequelize models are bound to a connection and associated. The schema comes only from
 // the migrations (db/migrations); nothing here calls `sync()`. Keys and timestamps default to the database's
 // gen_random_uuid() and now(), as the columns do, so every time in these tables is on the database's clock.
-import type { Sequelize } from 'sequelize';
+import type { Model, ModelStatic, Sequelize } from 'sequelize';
 import { defineAccountModels } from '../accounts/account-models';
 import { defineLinkModels } from '../accounts/link-models';
 import { defineSessionModels } from '../accounts/session-models';
@@ -64,36 +64,39 @@ function defineModels(sequelize: Sequelize) {
   models.InstallComponent.hasMany(models.InstallCircuit, { as: 'circuits', foreignKey: 'componentId' });
   models.InstallCircuit.belongsTo(models.InstallComponent, { as: 'component', foreignKey: 'componentId' });
   // A system belongs to its owner and, until the owner ends it, its installer company.
-  const { System, AccessGrant, Device } = models;
+  const { System, AccessGrant, Device, SystemAlert, AlertNotice, CommissioningRun, Upload } = models;
+  const { SavedBudget, ShareCode, AccessRequest, Handover, CapacitySampleRow, HealthCheckpointRow } = models;
   System.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   System.belongsTo(Company, { as: 'installerCompany', foreignKey: 'installerCompanyId' });
-  System.hasMany(AccessGrant, { as: 'grants', foreignKey: 'systemId' });
-  AccessGrant.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  // The rows kept per system: each is one system's (`systemId`), which reaches them under the name given.
+  const perSystem: [ModelStatic<Model>, string][] = [
+    [AccessGrant, 'grants'],
+    [Device, 'devices'],
+    [SystemAlert, 'alerts'],
+    [CommissioningRun, 'commissioningChecks'],
+    [Upload, 'uploads'],
+    [SavedBudget, 'energyBudgets'],
+    [ShareCode, 'shareCodes'],
+    [Handover, 'handovers'],
+    [CapacitySampleRow, 'capacitySamples'],
+  ];
+  for (const [rows, as] of perSystem) {
+    System.hasMany(rows, { as, foreignKey: 'systemId' });
+    rows.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  }
+  System.hasOne(HealthCheckpointRow, { as: 'healthCheckpoint', foreignKey: 'systemId' });
+  HealthCheckpointRow.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
+  // The people (and companies) a row names, each under the name of the part they played.
   AccessGrant.belongsTo(User, { as: 'granter', foreignKey: 'grantedBy' });
   AccessGrant.belongsTo(Company, { as: 'granteeCompany', foreignKey: 'granteeCompanyId' });
   AccessGrant.belongsTo(User, { as: 'granteeUser', foreignKey: 'granteeUserId' });
-  System.hasMany(Device, { as: 'devices', foreignKey: 'systemId' });
-  Device.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
-  const { SystemAlert, AlertNotice } = models;
-  System.hasMany(SystemAlert, { as: 'alerts', foreignKey: 'systemId' });
-  SystemAlert.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   SystemAlert.belongsTo(User, { as: 'acknowledger', foreignKey: 'acknowledgedBy' });
   SystemAlert.hasMany(AlertNotice, { as: 'notices', foreignKey: 'alertId' });
   AlertNotice.belongsTo(SystemAlert, { as: 'alert', foreignKey: 'alertId' });
   AlertNotice.belongsTo(User, { as: 'recipient', foreignKey: 'userId' });
-  const { CommissioningRun, Upload, SavedBudget } = models;
-  System.hasMany(CommissioningRun, { as: 'commissioningChecks', foreignKey: 'systemId' });
-  CommissioningRun.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   CommissioningRun.belongsTo(User, { as: 'installer', foreignKey: 'installerId' });
-  System.hasMany(Upload, { as: 'uploads', foreignKey: 'systemId' });
-  Upload.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   Upload.belongsTo(User, { as: 'uploader', foreignKey: 'uploadedBy' });
-  System.hasMany(SavedBudget, { as: 'energyBudgets', foreignKey: 'systemId' });
-  SavedBudget.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   SavedBudget.belongsTo(User, { as: 'author', foreignKey: 'createdBy' });
-  const { ShareCode, AccessRequest } = models;
-  System.hasMany(ShareCode, { as: 'shareCodes', foreignKey: 'systemId' });
-  ShareCode.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   ShareCode.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
   ShareCode.belongsTo(User, { as: 'claimer', foreignKey: 'usedBy' });
   AccessRequest.belongsTo(User, { as: 'requester', foreignKey: 'requesterId' });
@@ -101,16 +104,8 @@ function defineModels(sequelize: Sequelize) {
   AccessRequest.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   AccessRequest.belongsTo(User, { as: 'decider', foreignKey: 'decidedBy' });
   AccessRequest.belongsTo(AccessGrant, { as: 'grant', foreignKey: 'grantId' });
-  const { Handover } = models;
-  System.hasMany(Handover, { as: 'handovers', foreignKey: 'systemId' });
-  Handover.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   Handover.belongsTo(User, { as: 'offerer', foreignKey: 'offeredBy' });
   Handover.belongsTo(User, { as: 'acceptor', foreignKey: 'acceptedBy' });
-  const { CapacitySampleRow, HealthCheckpointRow } = models;
-  System.hasMany(CapacitySampleRow, { as: 'capacitySamples', foreignKey: 'systemId' });
-  CapacitySampleRow.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
-  System.hasOne(HealthCheckpointRow, { as: 'healthCheckpoint', foreignKey: 'systemId' });
-  HealthCheckpointRow.belongsTo(System, { as: 'system', foreignKey: 'systemId' });
   return models;
 }
 

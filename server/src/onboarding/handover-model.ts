@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  Op,
   fn,
   type CreationOptional,
   type ForeignKey,
@@ -13,6 +12,7 @@ import {
 } from 'sequelize';
 import type { User } from '../accounts/account-models';
 import type { System } from '../systems/system-model';
+import { activeAt } from '../database/active-scope';
 
 /**
  * A system waiting for the address it was set up for (at most one open per system, a partial unique index).
@@ -54,7 +54,7 @@ export function defineHandoverModels(sequelize: Sequelize) {
       whereMergeStrategy: 'and',
       // Open = not accepted and not lapsed at the caller's `now` (epoch ms), like a grant to an address.
       scopes: {
-        active: (now: number) => ({ where: { acceptedAt: null, expiresAt: { [Op.gt]: new Date(now) } } }),
+        active: activeAt('acceptedAt'),
       },
     },
   );
