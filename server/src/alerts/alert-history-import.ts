@@ -8,6 +8,7 @@ import {
 import { createSettingsRepository } from '../settings/settings-repository';
 import { utcOffsetMinutes } from '../settings/utc-offset';
 import { createAlertsRepository } from './alerts-repository';
+import { storeFlagEvent } from './alerts-service';
 
 /**
  * Taking in the alerts of readings made elsewhere (the demo's simulated history): the seeder runs the shared
@@ -28,23 +29,7 @@ export function createAlertHistoryImport(sequelize: Sequelize) {
 
     /** Stores one system's flag transitions in order: a start opens an event, the others update or close it. */
     async record(systemId: string, events: readonly FlagEvent[]): Promise<void> {
-      for (const event of events) {
-        if (event.transition === 'start')
-          await alerts.open({
-            systemId,
-            kind: event.kind,
-            severity: event.severity,
-            startedAt: event.at,
-            peakValue: event.peak,
-            unit: event.unit,
-          });
-        else
-          await alerts.update(systemId, event.kind, {
-            severity: event.severity,
-            peakValue: event.peak,
-            endedAt: event.transition === 'end' ? event.at : undefined,
-          });
-      }
+      for (const event of events) await storeFlagEvent(alerts, systemId, event);
     },
   };
 }

@@ -7,6 +7,32 @@ import type { AlertNotices } from './alert-notices';
 import type { AlertsRepository } from './alerts-repository';
 import { isUuid } from '../database/sql-values';
 
+/**
+ * Stores one flag transition: a start opens an event (`created` false when one of its kind was open already),
+ * an escalation updates the open one and an end closes it. The live path and the history import share it.
+ */
+export async function storeFlagEvent(
+  repository: Pick<AlertsRepository, 'open' | 'update'>,
+  systemId: string,
+  event: FlagEvent,
+): Promise<{ alert: AlertEvent | undefined; created: boolean }> {
+  if (event.transition === 'start')
+    return repository.open({
+      systemId,
+      kind: event.kind,
+      severity: event.severity,
+      startedAt: event.at,
+      peakValue: event.peak,
+      unit: event.unit,
+    });
+  const alert = await repository.update(systemId, event.kind, {
+    severity: event.severity,
+    peakValue: event.peak,
+    endedAt: event.transition === 'end' ? event.at : undefined,
+  });
+  return { alert, created: false };
+}
+
 /** Alert events: recorded from the flag engine's transitions, listed and acknowledged through the policy. */
 export function createAlertsService(deps: {
   repository: AlertsRepository;
@@ -42,26 +68,9 @@ export function createAlertsService(deps: {
     /** Stores one system's flag transitions in order, pushes them live and sends the e-mail notices. */
     async record(systemId: string, system: { name: string; timeZone: string }, events: readonly FlagEvent[]) {
       for (const event of events) {
-        let alert: AlertEvent | undefined;
-        if (event.transition === 'start') {
-          const opened = await deps.repository.open({
-            systemId,
-            kind: event.kind,
-            severity: event.severity,
-            startedAt: event.at,
-            peakValue: event.peak,
-            unit: event.unit,
-          });
-          alert = opened.alert;
-          if (opened.created) void deps.notices.send(alert, 'start', system);
-        } else {
-          alert = await deps.repository.update(systemId, event.kind, {
-            severity: event.severity,
-            peakValue: event.peak,
-            endedAt: event.transition === 'end' ? event.at : undefined,
-          });
-          if (alert && event.transition === 'end') void deps.notices.send(alert, 'end', system);
-        }
+        const { alert, created } = await storeFlagEvent(deps.repository, systemId, event);
+        if (alert && created) void deps.notices.send(alert, 'start', system);
+        if (alert && event.transition === 'end') void deps.notices.send(alert, 'end', system);
         if (alert) deps.publish(alert);
       }
     },
