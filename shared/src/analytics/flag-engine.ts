@@ -13,6 +13,9 @@ const TEMPERATURE_TREND_TAU_MS = 15 * 60_000;
 const TREND_GAP_MS = 10 * 60_000;
 const MS_PER_HOUR = 3_600_000;
 
+// Listed once: the engine runs every rule on every reading of every system.
+const RULES = Object.entries(FLAG_RULES) as [FlagKind, FlagRule][];
+
 /** What the flag engine remembers for one system. */
 export interface FlagState {
   tracks: Partial<Record<FlagKind, FlagTrack>>;
@@ -50,7 +53,7 @@ export function stepFlags(
   delete tracks['device-silent'];
 
   const context = { ...input, memory: previous.memory };
-  for (const [kind, rule] of Object.entries(FLAG_RULES) as [FlagKind, FlagRule][]) {
+  for (const [kind, rule] of RULES) {
     const minimumMs = settings.thresholds.minimumDurationSeconds[kind] * 1000;
     const releaseMs = (settings.thresholds.releaseDelaySeconds?.[kind] ?? 0) * 1000;
     const step = stepFlagTrack(kind, tracks[kind], rule(context), reading.measuredAt, minimumMs, releaseMs);

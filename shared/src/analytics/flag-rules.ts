@@ -252,7 +252,7 @@ function aboveLevels(
   critical: number,
   strict = false,
 ): FlagSignal['trigger'] {
-  const over = (limit: number) => (strict ? value > limit : value >= limit);
-  if (over(critical)) return 'critical';
-  return over(warning) ? 'warning' : undefined;
+  // Plain comparisons, no closure: this runs for several rules on every reading of every system.
+  if (strict ? value > critical : value >= critical) return 'critical';
+  return (strict ? value > warning : value >= warning) ? 'warning' : undefined;
 }
