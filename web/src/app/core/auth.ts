@@ -2,7 +2,8 @@ import { HttpClient, HttpErrorResponse } from '@angular/common/http';
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Router } from '@angular/router';
 import type { InvitationAcceptance, PublicUser, Role, SessionResponse } from '@cellwarden/shared';
-import { Observable, catchError, finalize, map, of, shareReplay, tap } from 'rxjs';
+import { Observable, catchError, finalize, from, map, of, shareReplay, tap } from 'rxjs';
+import { SESSION_HEAD_START } from './session-head-start';
 
 /** How long before the access token expires it is renewed, s. */
 const RENEW_BEFORE_EXPIRY_S = 60;
@@ -21,6 +22,8 @@ export class Auth {
   private refreshInFlight: Observable<string | null> | null = null;
   private restoreAttempted = false;
   private renewal: ReturnType<typeof setTimeout> | undefined;
+  // A renewal the page sent before the app ran; the first refresh takes it over instead of sending its own.
+  private headStart = inject(SESSION_HEAD_START);
 
   constructor() {
     inject(DestroyRef).onDestroy(() => clearTimeout(this.renewal));
@@ -58,7 +61,7 @@ export class Auth {
    * observable emits the new token, or null when it failed (a refusal also drops the session).
    */
   refresh(): Observable<string | null> {
-    this.refreshInFlight ??= this.http.post<SessionResponse>('/api/auth/refresh', {}).pipe(
+    this.refreshInFlight ??= this.renewal$().pipe(
       tap((response) => this.keep(response)),
       map((response) => response.accessToken),
       catchError((error: unknown) => {
@@ -70,6 +73,24 @@ export class Auth {
       shareReplay({ bufferSize: 1, refCount: false }),
     );
     return this.refreshInFlight;
+  }
+
+  /**
+   * The refresh request: the one already on its way since the page loaded if it is still untaken (a second one
+   * beside it would present a refresh token the first has just replaced, which the server treats as theft),
+   * else a new one.
+   */
+  private renewal$(): Observable<SessionResponse> {
+    const started = this.headStart;
+    if (!started) return this.http.post<SessionResponse>('/api/auth/refresh', {});
+    this.headStart = null;
+    return from(started).pipe(
+      map((answer) => {
+        if (answer.body && answer.status >= 200 && answer.status < 300) return answer.body;
+        // The same error HttpClient would raise, so a refusal and a lost connection are told apart as before.
+        throw new HttpErrorResponse({ status: answer.status, url: '/api/auth/refresh' });
+      }),
+    );
   }
 
   /** Emits whether a session exists, trying the refresh cookie once per page load when none is held. */

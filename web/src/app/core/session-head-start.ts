@@ -1,0 +1,26 @@
+import { InjectionToken } from '@angular/core';
+import type { SessionResponse } from '@cellwarden/shared';
+
+/** The answer to the renewal web/src/session-head-start.js sent: the HTTP status (0 without a connection). */
+export interface SessionHeadStartAnswer {
+  status: number;
+  /** The session when the status is 2xx, else null. */
+  body: SessionResponse | null;
+}
+
+// The global the head-start script sets; read once, then removed, so no later service takes it again.
+const GLOBAL_NAME = 'cwSessionHeadStart';
+
+/** Takes the renewal the page started before Angular ran, if there is one (at most once per page load). */
+export function takeSessionHeadStart(): Promise<SessionHeadStartAnswer> | null {
+  const holder = globalThis as { [GLOBAL_NAME]?: Promise<SessionHeadStartAnswer> };
+  const started = holder[GLOBAL_NAME] ?? null;
+  delete holder[GLOBAL_NAME];
+  return started;
+}
+
+/** The renewal already on its way when the app started, or null (then Auth sends its own). */
+export const SESSION_HEAD_START = new InjectionToken<Promise<SessionHeadStartAnswer> | null>(
+  'SESSION_HEAD_START',
+  { providedIn: 'root', factory: takeSessionHeadStart },
+);
