@@ -1,5 +1,6 @@
 import { Routes } from '@angular/router';
 import { authGuard } from './core/auth-guard';
+import { liveHeadStart } from './core/live-head-start';
 import { loadAlongside } from './core/load-alongside';
 import { roleGuard } from './core/role-guard';
 
@@ -28,6 +29,8 @@ export const routes: Routes = [
     path: 'systems/:id',
     title: 'Live · Cellwarden',
     canActivate: [loadAlongside(liveView), authGuard],
+    // Once the session is restored, the status and the stream start while the view's code still loads.
+    resolve: { headStart: liveHeadStart },
     loadComponent: liveView,
   },
   {

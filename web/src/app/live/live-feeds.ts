@@ -5,7 +5,7 @@ import { apiProblem } from '../core/api-error';
 import { LiveStream, SystemStreamEvent } from '../core/live-stream';
 import { LoadState, toLoadState } from '../core/load-state';
 import { SettingsApi } from '../core/settings-api';
-import { LiveState, applyStreamEvent, seedLiveState } from './live-state';
+import { EMPTY_LIVE_STATE, LiveState, applyStreamEvent, seedLiveState } from './live-state';
 import { ChartPoint, appendWithin } from './to-chart-series';
 
 /** How far back the live chart reaches. */
@@ -22,22 +22,30 @@ export function systemOrMissing(api: Api, id: string): Observable<SystemSummary 
 }
 
 type LiveStep = { kind: 'seed'; status: SystemStatus } | { kind: 'event'; event: SystemStreamEvent };
-/** The state once the status has arrived (null before), and the stream events that came ahead of it. */
-type Folding = { state: LiveState | null; early: SystemStreamEvent[] };
+/**
+ * The state so far (null until the status or a first reading is in), the stream events that came ahead of the
+ * status, and whether the status is in.
+ */
+type Folding = { state: LiveState | null; early: SystemStreamEvent[]; seeded: boolean };
 
 /**
  * The status, then every stream event folded in; stops listening once access ends. The stream is subscribed
  * at the same time as the status is asked for (not after it), so the socket opens while the status is on its
- * way; events arriving first wait for it and are folded in after it.
+ * way. Whichever comes first is shown first: a reading from the stream before the status is shown on its own,
+ * and once the status arrives the early events are folded in after it.
  */
-export function liveStates(api: Api, stream: LiveStream, id: string): Observable<LiveLoad> {
+export function liveStates(
+  api: Pick<Api, 'status'>,
+  stream: Pick<LiveStream, 'events'>,
+  id: string,
+): Observable<LiveLoad> {
   const states = merge(
     api.status(id).pipe(map((status): LiveStep => ({ kind: 'seed', status }))),
     stream.events(id).pipe(map((event): LiveStep => ({ kind: 'event', event }))),
   ).pipe(
-    scan(foldLiveStep, { state: null, early: [] }),
-    filter((folding): folding is { state: LiveState; early: [] } => folding.state !== null),
+    scan(foldLiveStep, { state: null, early: [], seeded: false }),
     map((folding) => folding.state),
+    filter((state): state is LiveState => state !== null),
     takeWhile((state) => !state.accessEnded, true),
   );
   // The server's own message, whatever it is.
@@ -48,10 +56,15 @@ export function liveStates(api: Api, stream: LiveStream, id: string): Observable
 export function foldLiveStep(folding: Folding, step: LiveStep): Folding {
   if (step.kind === 'seed') {
     // A reading no newer than the status's own is ignored by applyStreamEvent, as it is later.
-    return { state: folding.early.reduce(applyStreamEvent, seedLiveState(step.status)), early: [] };
+    const state = folding.early.reduce(applyStreamEvent, seedLiveState(step.status));
+    return { state, early: [], seeded: true };
   }
-  if (folding.state) return { state: applyStreamEvent(folding.state, step.event), early: [] };
-  return { state: null, early: [...folding.early, step.event] };
+  if (folding.seeded) return { ...folding, state: applyStreamEvent(folding.state!, step.event) };
+  const early = [...folding.early, step.event];
+  // Until the status names the bank's lead monitor, the first reading shows, as in the chart; an alert alone
+  // waits for the status, which lists the other flags too.
+  const shown = early.some((e) => e.type !== 'alert');
+  return { state: shown ? early.reduce(applyStreamEvent, EMPTY_LIVE_STATE) : null, early, seeded: false };
 }
 
 /**

@@ -14,6 +14,7 @@ import { loadError, loadedOr } from '../core/load-state';
 import { currentDirection } from '../core/current-direction';
 import { formatInstant, viewerTimeZone } from '../core/date-time';
 import { DateTimePipe } from '../core/date-time-pipe';
+import { LiveHeadStart } from '../core/live-head-start';
 import { LiveStream } from '../core/live-stream';
 import { injectNow } from '../core/now';
 import { SettingsApi } from '../core/settings-api';
@@ -57,6 +58,7 @@ export class Live {
   private readonly api = inject(Api);
   private readonly settingsApi = inject(SettingsApi);
   private readonly stream = inject(LiveStream);
+  private readonly headStart = inject(LiveHeadStart);
   private readonly locale = inject(LOCALE_ID);
   private readonly colours = inject(ChartColours);
   protected readonly now = injectNow(5_000);
@@ -67,7 +69,8 @@ export class Live {
   private readonly id$ = toObservable(this.id);
   protected readonly system = toSignal(this.id$.pipe(switchMap((id) => systemOrMissing(this.api, id))));
   protected readonly load = toSignal(
-    this.id$.pipe(switchMap((id) => liveStates(this.api, this.stream, id))),
+    // The status and stream the route's head start asked for while this view's code loaded (else new ones).
+    this.id$.pipe(switchMap((id) => liveStates(this.headStart, this.headStart, id))),
     {
       initialValue: { status: 'loading' as const },
     },

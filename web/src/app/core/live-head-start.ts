@@ -1,0 +1,101 @@
+import { Injectable, inject } from '@angular/core';
+import type { ResolveFn } from '@angular/router';
+import type { SystemStatus } from '@cellwarden/shared';
+import { Observable, Subscription, shareReplay } from 'rxjs';
+import { Api } from './api';
+import { LiveStream, type SystemStreamEvent } from './live-stream';
+
+/** How long a head start waits for its view before it lets go of the socket subscription it holds. */
+const UNCLAIMED_AFTER_MS = 10_000;
+
+interface Pending {
+  systemId: string;
+  status: Observable<SystemStatus>;
+  /** Stream events that arrived before the view took over. */
+  early: SystemStreamEvent[];
+  holds: Subscription;
+  statusClaimed: boolean;
+  eventsClaimed: boolean;
+  expiry: ReturnType<typeof setTimeout>;
+}
+
+/**
+ * Asks for a system's status and subscribes to its stream as soon as the session is known, while the live view's
+ * code is still downloading; the view then takes both over instead of asking again (each once). Before, the
+ * status request and the socket waited for the view's code, about a quarter of a second after the session.
+ */
+@Injectable({ providedIn: 'root' })
+export class LiveHeadStart {
+  private readonly api = inject(Api);
+  private readonly stream = inject(LiveStream);
+  private pending: Pending | null = null;
+
+  /** Starts the status request and the stream subscription for `systemId`, dropping an unclaimed earlier one. */
+  start(systemId: string): void {
+    this.release();
+    const status = this.api.status(systemId).pipe(shareReplay({ bufferSize: 1, refCount: false }));
+    const pending: Pending = {
+      systemId,
+      status,
+      early: [],
+      holds: new Subscription(),
+      statusClaimed: false,
+      eventsClaimed: false,
+      expiry: setTimeout(() => this.release(), UNCLAIMED_AFTER_MS),
+    };
+    // Errors reach the view through its own subscription to the replayed status; here they are only held.
+    pending.holds.add(status.subscribe({ error: () => undefined }));
+    pending.holds.add(
+      this.stream.events(systemId).subscribe({ next: (e) => pending.early.push(e), error: () => undefined }),
+    );
+    this.pending = pending;
+  }
+
+  /** The system's status: the one already asked for if it is this system's and untaken, else a new request. */
+  status(systemId: string): Observable<SystemStatus> {
+    const pending = this.pending;
+    if (!pending || pending.systemId !== systemId || pending.statusClaimed) return this.api.status(systemId);
+    pending.statusClaimed = true;
+    this.releaseIfClaimed();
+    return pending.status;
+  }
+
+  /** The system's stream events: those that came early first, then the live ones, as `LiveStream.events`. */
+  events(systemId: string): Observable<SystemStreamEvent> {
+    const pending = this.pending;
+    if (!pending || pending.systemId !== systemId || pending.eventsClaimed)
+      return this.stream.events(systemId);
+    pending.eventsClaimed = true;
+    return new Observable<SystemStreamEvent>((subscriber) => {
+      pending.early.forEach((e) => subscriber.next(e));
+      pending.early = [];
+      // The view's own subscription is counted before the head start's ends, so the server never hears an
+      // unsubscribe in between; nothing can arrive between the two, as both happen in this one task.
+      const inner = this.stream.events(systemId).subscribe(subscriber);
+      this.releaseIfClaimed();
+      return inner;
+    });
+  }
+
+  private releaseIfClaimed(): void {
+    if (this.pending?.statusClaimed && this.pending.eventsClaimed && this.pending.early.length === 0)
+      this.release();
+  }
+
+  private release(): void {
+    if (!this.pending) return;
+    clearTimeout(this.pending.expiry);
+    this.pending.holds.unsubscribe();
+    this.pending = null;
+  }
+}
+
+/**
+ * The live route's resolver: it runs once the guards have restored the session, starts the head start and
+ * resolves at once, so the navigation never waits for it.
+ */
+export const liveHeadStart: ResolveFn<true> = (route) => {
+  const systemId = route.paramMap.get('id');
+  if (systemId) inject(LiveHeadStart).start(systemId);
+  return true;
+};
