@@ -1,5 +1,14 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, LOCALE_ID, computed, inject, input } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  LOCALE_ID,
+  afterRenderEffect,
+  computed,
+  inject,
+  input,
+  signal,
+} from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
@@ -7,7 +16,7 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { ChartOptions } from 'chart.js';
 import { provideChartSetup } from '../core/chart-setup';
 import { ChartFigure } from '../core/chart-figure/chart-figure';
-import { switchMap } from 'rxjs';
+import { asyncScheduler, switchMap, throttleTime } from 'rxjs';
 import { Api } from '../core/api';
 import { ChartColours } from '../core/chart-palette';
 import { loadError, loadedOr } from '../core/load-state';
@@ -32,6 +41,13 @@ import { ampHoursRemaining, morningHeadline } from './morning-headline';
 import { formatHours } from './runtime-text';
 import { sourceShares } from './source-shares';
 import { toChartSeries } from './to-chart-series';
+
+/**
+ * The chart redraws at most this often, ms: each redraw lays out three hours of points again, and a monitor
+ * reporting several times a second would keep the main thread busy with it; a second is well below one
+ * pixel of a three-hour line.
+ */
+const CHART_REDRAW_MS = 1000;
 
 /** One system's values now: charge, flows, runtime, flags and the last hours. */
 @Component({
@@ -93,7 +109,7 @@ export class Live {
         liveChartPoints(this.api, this.stream, id, (deviceId) => {
           const lead = this.leadId();
           return lead === null || deviceId === undefined || deviceId === lead;
-        }),
+        }).pipe(throttleTime(CHART_REDRAW_MS, asyncScheduler, { leading: true, trailing: true })),
       ),
     ),
     {
@@ -148,7 +164,11 @@ export class Live {
   protected readonly flags = computed(() =>
     withColdCharge(this.state()?.flags ?? [], this.coldCharging(), this.reading()?.measuredAt),
   );
-  protected readonly chartData = computed(() => toChartSeries(this.points(), this.colours.palette()));
+  // The chart gets its points only once the values above it are on screen (see the constructor).
+  private readonly chartShown = signal(false);
+  protected readonly chartData = computed(() =>
+    toChartSeries(this.chartShown() ? this.points() : [], this.colours.palette()),
+  );
   protected readonly chartSummary = computed(() => describeSeries(this.points(), 'in the last 3 hours'));
   protected readonly chartOptions: ChartOptions<'line'> = {
     animation: false,
@@ -174,6 +194,16 @@ export class Live {
       },
     },
   };
+
+  constructor() {
+    // chart.js lays out its axes and draws in the same task as the tiles render (about 300 ms for three hours
+    // of readings on a busy 2-core machine), so the first values would wait for the chart. It gets its points
+    // after the frame that shows the values: the animation frame comes before that paint, the timeout after it.
+    afterRenderEffect(() => {
+      if (this.chartShown() || !this.state()) return;
+      requestAnimationFrame(() => setTimeout(() => this.chartShown.set(true)));
+    });
+  }
 
   private coldCharging(): boolean {
     const reading = this.reading();
