@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { BatteryReading, HistoryPoint } from '@cellwarden/shared';
-import { isUuid } from '../database/sql-values';
+import { arrayLiteral, isUuid } from '../database/sql-values';
 import { LEAD_MONITOR_SQL } from './lead-monitor';
 import { INSERT_READINGS_WITH_ROLLUPS, LOCK_SYSTEMS, MAX_INTEGRATION_GAP_SECONDS } from './rollups-sql';
 
@@ -42,11 +42,11 @@ export function createReadingsRepository(sequelize: Sequelize, reader: Sequelize
     async insertBatch(rows: readonly ReadingRow[]): Promise<ReadingRow[]> {
       if (rows.length === 0) return [];
       await ensurePartitions(rows);
-      const receivedAt = new Date();
-      const column = <T>(pick: (row: ReadingRow) => T) => rows.map(pick);
+      const receivedAt = new Date().toISOString();
+      const column = (pick: (row: ReadingRow) => string | number | null) => arrayLiteral(rows.map(pick));
       const bind = [
         column((r) => r.systemId),
-        column((r) => new Date(r.reading.measuredAt)),
+        column((r) => new Date(r.reading.measuredAt).toISOString()),
         column((r) => r.deviceId),
         column((r) => r.reading.voltage),
         column((r) => r.reading.current),
