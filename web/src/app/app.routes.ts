@@ -1,11 +1,24 @@
-import { Routes } from '@angular/router';
+import { Injector, inject } from '@angular/core';
+import { ResolveFn, Routes } from '@angular/router';
 import { authGuard } from './core/auth-guard';
-import { liveHeadStart } from './core/live-head-start';
 import { loadAlongside } from './core/load-alongside';
 import { roleGuard } from './core/role-guard';
 
 // The live view is the first screen after a reload; its code loads while the session is restored.
 const liveView = () => import('./live/live').then((m) => m.Live);
+
+// Once the guards have restored the session, the live view's status and stream start while its code still
+// loads (core/live-head-start.ts). Resolved at once, so the navigation never waits; the head start's own code
+// is fetched lazily, as the stream's code would otherwise join every page's first download.
+const liveHeadStart: ResolveFn<true> = (route) => {
+  const injector = inject(Injector);
+  const systemId = route.paramMap.get('id');
+  if (systemId)
+    import('./core/live-head-start')
+      .then((m) => injector.get(m.LiveHeadStart).start(systemId))
+      .catch(() => undefined);
+  return true;
+};
 
 export const routes: Routes = [
   {
@@ -29,7 +42,6 @@ export const routes: Routes = [
     path: 'systems/:id',
     title: 'Live · Cellwarden',
     canActivate: [loadAlongside(liveView), authGuard],
-    // Once the session is restored, the status and the stream start while the view's code still loads.
     resolve: { headStart: liveHeadStart },
     loadComponent: liveView,
   },

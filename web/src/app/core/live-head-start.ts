@@ -1,5 +1,4 @@
 import { Injectable, inject } from '@angular/core';
-import type { ResolveFn } from '@angular/router';
 import type { SystemStatus } from '@cellwarden/shared';
 import { Observable, Subscription, shareReplay } from 'rxjs';
 import { Api } from './api';
@@ -89,13 +88,3 @@ export class LiveHeadStart {
     this.pending = null;
   }
 }
-
-/**
- * The live route's resolver: it runs once the guards have restored the session, starts the head start and
- * resolves at once, so the navigation never waits for it.
- */
-export const liveHeadStart: ResolveFn<true> = (route) => {
-  const systemId = route.paramMap.get('id');
-  if (systemId) inject(LiveHeadStart).start(systemId);
-  return true;
-};
