@@ -192,3 +192,23 @@ it('keeps the rollups exact when two writers store interleaved readings of one s
   expectSameBuckets(await storedBuckets('rollups_1m', systemId), referenceBuckets(readings, MINUTE));
   expectSameBuckets(await storedBuckets('rollups_1h', systemId), referenceBuckets(readings, HOUR));
 });
+
+it('stores one batch whose readings jump between months far from now, each in its own partition', async () => {
+  const systemId = await newSystem();
+  // Months the migrations did not create: the batch goes back and forth between them, and the last one
+  // is a month the repository saw before (its cached month must not hide a new one).
+  const at = (year: number, month: number, day: number) => Date.UTC(year, month, day, 12);
+  const times = [at(2031, 1, 27), at(2031, 0, 31), at(2031, 1, 28), at(2029, 2, 1), at(2031, 0, 30)];
+  const readings = times.map((measuredAt, i) => ({ measuredAt, voltage: 13.2, current: -i, temperature: 8 }));
+  const stored = await repository.insertBatch(rowsOf(systemId, readings));
+  expect(stored).toHaveLength(times.length);
+  const rows = await sequelize.query<{ at: Date; partition: string }>(
+    `SELECT measured_at AS at, tableoid::regclass::text AS partition FROM readings WHERE system_id = :systemId
+     ORDER BY measured_at`,
+    { replacements: { systemId }, type: QueryTypes.SELECT },
+  );
+  expect(rows.map((r) => new Date(r.at).getTime())).toEqual([...times].sort((a, b) => a - b));
+  expect(new Set(rows.map((r) => r.partition)).size).toBe(3);
+  // A redelivery of the whole batch adds nothing and is reported as nothing new.
+  expect(await repository.insertBatch(rowsOf(systemId, readings))).toEqual([]);
+});

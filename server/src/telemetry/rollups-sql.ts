@@ -19,10 +19,14 @@ const heldHours = (at: string, previousAt: string) =>
 const METRICS = ['voltage', 'current', 'temperature'] as const;
 
 // Readings are ordered by (measured time, device): two monitors on one bank may measure in the same instant.
+// Measured times come as epoch milliseconds (whole numbers): to_timestamp of the seconds is exact to the
+// microsecond for any date this product stores, since float8 carries 15–16 significant digits.
 const NEW_ROWS = `incoming AS (
-  SELECT * FROM unnest($1::uuid[], $2::timestamptz[], $3::text[], $4::float8[], $5::float8[], $6::float8[],
+  SELECT system_id, to_timestamp(measured_ms / 1000.0) AS measured_at, device_id, voltage, current, temperature,
+    state_of_charge, power, source_currents, received_at
+  FROM unnest($1::uuid[], $2::float8[], $3::text[], $4::float8[], $5::float8[], $6::float8[],
     $7::float8[], $8::float8[], $9::text[], $10::timestamptz[])
-    AS t(system_id, measured_at, device_id, voltage, current, temperature, state_of_charge, power,
+    AS t(system_id, measured_ms, device_id, voltage, current, temperature, state_of_charge, power,
       source_currents, received_at)
 ), stored AS (
   INSERT INTO readings (system_id, measured_at, device_id, voltage, current, temperature, state_of_charge,
@@ -173,7 +177,7 @@ ${changes}_new AS (
 )`;
 
 /**
- * Stores a batch bound as ten parallel arrays (system, measured time, device, voltage, current, temperature,
+ * Stores a batch bound as ten parallel arrays (system, measured time in epoch ms, device, voltage, current, temperature,
  * state of charge, power, source currents as JSON text, received time) and updates both rollups from the
  * rows that were new; returns the keys of those rows. $11 and $12 bound the neighbour lookups (the batch's
  * earliest time less the gap cap, its latest plus it), so the planner reads only the months they can lie in.
