@@ -7,6 +7,8 @@ import { Subject } from 'rxjs';
 import type { WebSocketSubjectConfig } from 'rxjs/webSocket';
 import { LiveHeadStart } from './live-head-start';
 import { WEB_SOCKET_FACTORY, type SystemStreamEvent } from './live-stream';
+import { OfflineStore } from './offline/offline-store';
+import { STATUS_HEAD_START, type StatusHeadStartAnswer } from './session-head-start';
 
 class FakeSocket extends Subject<unknown> {
   readonly sent: unknown[] = [];
@@ -43,8 +45,11 @@ describe('LiveHeadStart', () => {
   let sockets: FakeSocket[];
   let http: HttpTestingController;
   let headStart: LiveHeadStart;
+  // The status request the page's script sent before the app ran, per system (none unless a test sets one).
+  let early: Record<string, Promise<StatusHeadStartAnswer>>;
 
   beforeEach(() => {
+    early = {};
     jest.useFakeTimers();
     sockets = [];
     TestBed.configureTestingModule({
@@ -58,6 +63,14 @@ describe('LiveHeadStart', () => {
             const socket = new FakeSocket(config);
             sockets.push(socket);
             return socket;
+          },
+        },
+        {
+          provide: STATUS_HEAD_START,
+          useValue: (systemId: string) => {
+            const started = early[systemId] ?? null;
+            delete early[systemId];
+            return started;
           },
         },
       ],
@@ -117,5 +130,29 @@ describe('LiveHeadStart', () => {
     // Nobody else watches: the socket closes.
     jest.advanceTimersByTime(1_000);
     expect(sockets[0].observed).toBe(false);
+  });
+
+  it('takes over the status the page asked for before the app ran, and keeps it for offline use', async () => {
+    early['van-1'] = Promise.resolve({ status: 200, body: { status: STATUS } });
+    const kept = jest.spyOn(TestBed.inject(OfflineStore), 'recordStatus');
+    headStart.start('van-1');
+    http.expectNone('/api/systems/van-1/status');
+    const seen: unknown[] = [];
+    headStart.status('van-1').subscribe((s) => seen.push(s));
+    await Promise.resolve();
+    await Promise.resolve();
+    expect(seen).toEqual([STATUS]);
+    expect(kept).toHaveBeenCalledWith(STATUS);
+  });
+
+  it("asks the usual way when the page's own status request failed", async () => {
+    early['van-1'] = Promise.resolve({ status: 401, body: null });
+    headStart.start('van-1');
+    await Promise.resolve();
+    await Promise.resolve();
+    const seen: unknown[] = [];
+    headStart.status('van-1').subscribe((s) => seen.push(s));
+    http.expectOne('/api/systems/van-1/status').flush({ status: STATUS });
+    expect(seen).toEqual([STATUS]);
   });
 });

@@ -1,8 +1,10 @@
 import { Injectable, inject } from '@angular/core';
 import type { SystemStatus } from '@cellwarden/shared';
-import { Observable, Subscription, shareReplay } from 'rxjs';
+import { Observable, Subscription, catchError, from, map, shareReplay } from 'rxjs';
 import { Api } from './api';
 import { LiveStream, type SystemStreamEvent } from './live-stream';
+import { OfflineStore } from './offline/offline-store';
+import { STATUS_HEAD_START } from './session-head-start';
 
 /** How long a head start waits for its view before it lets go of the socket subscription it holds. */
 const UNCLAIMED_AFTER_MS = 10_000;
@@ -27,12 +29,14 @@ interface Pending {
 export class LiveHeadStart {
   private readonly api = inject(Api);
   private readonly stream = inject(LiveStream);
+  private readonly offline = inject(OfflineStore);
+  private readonly takeEarlyStatus = inject(STATUS_HEAD_START);
   private pending: Pending | null = null;
 
   /** Starts the status request and the stream subscription for `systemId`, dropping an unclaimed earlier one. */
   start(systemId: string): void {
     this.release();
-    const status = this.api.status(systemId).pipe(shareReplay({ bufferSize: 1, refCount: false }));
+    const status = this.statusRequest(systemId).pipe(shareReplay({ bufferSize: 1, refCount: false }));
     const pending: Pending = {
       systemId,
       status,
@@ -74,6 +78,24 @@ export class LiveHeadStart {
       this.releaseIfClaimed();
       return inner;
     });
+  }
+
+  /**
+   * The status request the page's head-start script already sent if it is this system's; it bypassed the HTTP
+   * interceptors, so its answer is kept for offline use here, and any failure asks again the usual way (which
+   * renews the token or sends the visitor to sign-in as every request does).
+   */
+  private statusRequest(systemId: string): Observable<SystemStatus> {
+    const early = this.takeEarlyStatus(systemId);
+    if (!early) return this.api.status(systemId);
+    return from(early).pipe(
+      map((answer) => {
+        if (!answer.body || answer.status < 200 || answer.status >= 300) throw new Error('no early status');
+        this.offline.recordStatus(answer.body.status);
+        return answer.body.status;
+      }),
+      catchError(() => this.api.status(systemId)),
+    );
   }
 
   private releaseIfClaimed(): void {

@@ -5,7 +5,12 @@ import { ActivatedRouteSnapshot, Router, RouterStateSnapshot, UrlTree, provideRo
 import { firstValueFrom, type Observable } from 'rxjs';
 import { Auth } from './auth';
 import { authGuard } from './auth-guard';
-import { SESSION_HEAD_START, takeSessionHeadStart, type SessionHeadStartAnswer } from './session-head-start';
+import {
+  SESSION_HEAD_START,
+  takeSessionHeadStart,
+  takeStatusHeadStart,
+  type SessionHeadStartAnswer,
+} from './session-head-start';
 
 const USER = { id: 'u1', email: 'ana@example.com', displayName: 'Ana', roles: ['owner'], companyId: null };
 const SESSION = { accessToken: 'tok-early', expiresIn: 900, user: USER };
@@ -93,5 +98,22 @@ describe('takeSessionHeadStart', () => {
 
   it('is null when the page started none (a public page, or tests)', () => {
     expect(takeSessionHeadStart()).toBeNull();
+  });
+});
+
+describe('takeStatusHeadStart', () => {
+  const holder = globalThis as { cwStatusHeadStart?: unknown };
+  afterEach(() => delete holder.cwStatusHeadStart);
+
+  it("hands out the page's status request for its own system, once", () => {
+    const answer = Promise.resolve({ status: 200, body: null });
+    holder.cwStatusHeadStart = { systemId: 'van-1', answer };
+    expect(takeStatusHeadStart('van-1')).toBe(answer);
+    expect(takeStatusHeadStart('van-1')).toBeNull();
+  });
+
+  it('gives nothing for another system (the visitor moved on before the view started)', () => {
+    holder.cwStatusHeadStart = { systemId: 'van-1', answer: Promise.resolve({ status: 200, body: null }) };
+    expect(takeStatusHeadStart('van-2')).toBeNull();
   });
 });

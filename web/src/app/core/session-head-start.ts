@@ -1,5 +1,5 @@
 import { InjectionToken } from '@angular/core';
-import type { SessionResponse } from '@cellwarden/shared';
+import type { SessionResponse, SystemStatus } from '@cellwarden/shared';
 
 /** The answer to the renewal web/src/session-head-start.js sent: the HTTP status (0 without a connection). */
 export interface SessionHeadStartAnswer {
@@ -24,3 +24,27 @@ export const SESSION_HEAD_START = new InjectionToken<Promise<SessionHeadStartAns
   'SESSION_HEAD_START',
   { providedIn: 'root', factory: takeSessionHeadStart },
 );
+
+/** The answer to the status request the head-start script sent on a live view (0 without a connection). */
+export interface StatusHeadStartAnswer {
+  status: number;
+  /** GET /api/systems/:id/status's body when the status is 2xx, else null. */
+  body: { status: SystemStatus } | null;
+}
+
+const STATUS_GLOBAL_NAME = 'cwStatusHeadStart';
+
+/** Takes the status request the page started for `systemId`, if there is one (at most once per page load). */
+export function takeStatusHeadStart(systemId: string): Promise<StatusHeadStartAnswer> | null {
+  const holder = globalThis as {
+    [STATUS_GLOBAL_NAME]?: { systemId: string; answer: Promise<StatusHeadStartAnswer> };
+  };
+  const started = holder[STATUS_GLOBAL_NAME];
+  delete holder[STATUS_GLOBAL_NAME];
+  return started?.systemId === systemId ? started.answer : null;
+}
+
+/** How the live head start takes over that status request; replaced in tests. */
+export const STATUS_HEAD_START = new InjectionToken<
+  (systemId: string) => Promise<StatusHeadStartAnswer> | null
+>('STATUS_HEAD_START', { providedIn: 'root', factory: () => takeStatusHeadStart });
