@@ -42,8 +42,8 @@ export function createRequireUser(accounts: AccountsService, jwtSecret: string):
     ),
   );
   return (req, res, next) => {
-    // Each system router is mounted behind its own copy of this check, so a request passing several mounts
-    // before its route would verify its token and read its session once per mount (seven times for /status).
+    // Every signed-in row of the routes table runs this check, so a request passing several rows before its
+    // route would otherwise verify its token and read its session once per row (seven times for /status).
     if (req.currentUser) return next();
     authenticator.authenticate('jwt', { session: false }, (error: unknown, signedIn: SignedIn | false) => {
       if (error) return next(error);
