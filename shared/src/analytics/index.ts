@@ -11,6 +11,7 @@ export { stepMeanCurrent, DEFAULT_MEAN_WINDOW_MINUTES } from './mean-current';
 export type { ProjectionStart, ChargeProjection } from './projections';
 export { hoursToEmpty, hoursToFull, projectStateOfCharge, NEGLIGIBLE_CURRENT_A } from './projections';
 export { nextLocalTime } from './local-time';
+export { utcOffsetMinutes, wallClockIn, zoneOffsetMs } from './zone-offset';
 // FlagKind and FlagSeverity are exported by the API contract (shared/src/api/alerts-contract.ts).
 export type { FlagTransition, FlagEvent, ActiveFlag } from './flag-event';
 export { FLAG_KINDS } from './flag-event';
