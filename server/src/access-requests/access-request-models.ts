@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { OutgoingAccessRequest } from '@cellwarden/shared';
 import type { User } from '../accounts/account-models';
 import { activeAt } from '../database/active-scope';
@@ -53,11 +53,11 @@ export function defineAccessRequestModels(sequelize: Sequelize) {
   const BoundShareCode = class extends ShareCode {};
   BoundShareCode.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       codeHash: { type: DataTypes.TEXT, allowNull: false },
       createdBy: DataTypes.UUID,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: DataTypes.DATE,
       usedBy: DataTypes.UUID,
@@ -78,7 +78,7 @@ export function defineAccessRequestModels(sequelize: Sequelize) {
   const BoundRequest = class extends AccessRequest {};
   BoundRequest.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       requesterId: { type: DataTypes.UUID, allowNull: false },
       requesterCompanyId: DataTypes.UUID,
       via: { type: DataTypes.TEXT, allowNull: false },
@@ -86,7 +86,7 @@ export function defineAccessRequestModels(sequelize: Sequelize) {
       systemName: DataTypes.TEXT,
       systemId: DataTypes.UUID,
       note: { type: DataTypes.TEXT, defaultValue: '' },
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       decision: DataTypes.TEXT,
       decidedAt: DataTypes.DATE,

@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { GrantAccess } from '@cellwarden/shared';
 import type { Company, User } from '../accounts/account-models';
 import type { System } from '../systems/system-model';
@@ -41,7 +41,7 @@ export function defineGrantModels(sequelize: Sequelize) {
   const BoundGrant = class extends AccessGrant {};
   BoundGrant.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       granteeCompanyId: DataTypes.UUID,
       granteeUserId: DataTypes.UUID,
@@ -50,7 +50,7 @@ export function defineGrantModels(sequelize: Sequelize) {
       grantedBy: { type: DataTypes.UUID, allowNull: false },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       revokedAt: DataTypes.DATE,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
     },
     {
       sequelize,

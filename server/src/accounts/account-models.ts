@@ -4,7 +4,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -12,6 +11,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { Role } from '@cellwarden/shared';
 
 /** A company (installer, support desk) people belong to. */
@@ -40,24 +40,24 @@ export function defineAccountModels(sequelize: Sequelize) {
   const BoundCompany = class extends Company {};
   BoundCompany.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       name: { type: DataTypes.TEXT, allowNull: false },
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
+      updatedAt: databaseNow(),
     },
     { sequelize, modelName: 'Company', tableName: 'companies', underscored: true },
   );
   const BoundUser = class extends User {};
   BoundUser.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       email: { type: DataTypes.TEXT, allowNull: false },
       displayName: { type: DataTypes.TEXT, allowNull: false },
       passwordHash: { type: DataTypes.TEXT, allowNull: false },
       roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
       companyId: { type: DataTypes.UUID },
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
+      updatedAt: databaseNow(),
     },
     { sequelize, modelName: 'User', tableName: 'users', underscored: true },
   );

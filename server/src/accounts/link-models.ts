@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { Role } from '@cellwarden/shared';
 import type { Company } from './account-models';
 import { activeOnDatabaseClock } from '../database/active-scope';
@@ -45,14 +45,14 @@ export function defineLinkModels(sequelize: Sequelize) {
   const BoundInvitation = class extends Invitation {};
   BoundInvitation.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       tokenHash: { type: DataTypes.TEXT, allowNull: false },
       email: { type: DataTypes.TEXT, allowNull: false },
       roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
       invitedBy: DataTypes.UUID,
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       acceptedAt: DataTypes.DATE,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
     },
     {
       sequelize,
@@ -71,7 +71,7 @@ export function defineLinkModels(sequelize: Sequelize) {
       tokenHash: { type: DataTypes.TEXT, primaryKey: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: DataTypes.DATE,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
     },
     {
       sequelize,

@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow } from '../database/columns';
 import type { User } from './account-models';
 import { activeOnDatabaseClock } from '../database/active-scope';
 
@@ -46,7 +46,7 @@ export function defineSessionModels(sequelize: Sequelize) {
   BoundSession.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true },
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
       endedAt: DataTypes.DATE,
       endedReason: DataTypes.TEXT,
     },
@@ -69,7 +69,7 @@ export function defineSessionModels(sequelize: Sequelize) {
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       rotatedAt: DataTypes.DATE,
       revokedAt: DataTypes.DATE,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
     },
     {
       sequelize,

@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { FlagKind, FlagSeverity } from '@cellwarden/shared';
 import type { User } from '../accounts/account-models';
 
@@ -46,7 +46,7 @@ export function defineAlertModels(sequelize: Sequelize) {
   const BoundAlert = class extends SystemAlert {};
   BoundAlert.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       kind: { type: DataTypes.TEXT, allowNull: false },
       severity: { type: DataTypes.TEXT, allowNull: false },
@@ -77,7 +77,7 @@ export function defineAlertModels(sequelize: Sequelize) {
       alertId: { type: DataTypes.UUID, allowNull: false },
       userId: { type: DataTypes.UUID, allowNull: false },
       transition: { type: DataTypes.TEXT, allowNull: false },
-      sentAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      sentAt: databaseNow(),
     },
     { sequelize, modelName: 'AlertNotice', tableName: 'alert_notices', underscored: true, timestamps: false },
   );

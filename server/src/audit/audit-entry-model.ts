@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow } from '../database/columns';
 import type { AuditAction } from '@cellwarden/shared';
 import type { User } from '../accounts/account-models';
 
@@ -37,7 +37,7 @@ export function defineAuditModels(sequelize: Sequelize) {
       systemId: { type: DataTypes.UUID, allowNull: false },
       action: { type: DataTypes.TEXT, allowNull: false },
       detail: { type: DataTypes.TEXT, allowNull: false },
-      at: { type: DataTypes.DATE, defaultValue: fn('now') },
+      at: databaseNow(),
     },
     { sequelize, modelName: 'AuditEntry', tableName: 'audit_entries', underscored: true, timestamps: false },
   );

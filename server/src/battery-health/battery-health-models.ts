@@ -3,13 +3,13 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow } from '../database/columns';
 import type { CapacitySample, CapacityTrackerState, LifeCycleState } from '@cellwarden/shared';
 
 /** One capacity estimate of a system's battery, keyed by the system and the minute it ended. */
@@ -81,7 +81,7 @@ export function defineBatteryHealthModels(sequelize: Sequelize) {
       hoursReadingCount: { type: DataTypes.BIGINT, defaultValue: 0 },
       lateRebuilds: { type: DataTypes.INTEGER, defaultValue: 0 },
       coveredFrom: DataTypes.DATE,
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      updatedAt: databaseNow(),
     },
     {
       sequelize,

@@ -2,13 +2,13 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow } from '../database/columns';
 
 /** A battery monitor of one system; its id is its MQTT client id, its secret is stored only as a hash. */
 export class Device extends Model<InferAttributes<Device>, InferCreationAttributes<Device>> {
@@ -33,8 +33,8 @@ export function defineDeviceModels(sequelize: Sequelize) {
       secretHash: { type: DataTypes.TEXT, allowNull: false },
       revokedAt: DataTypes.DATE,
       lastSeenAt: DataTypes.DATE,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
+      updatedAt: databaseNow(),
     },
     {
       sequelize,

@@ -3,13 +3,13 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { ComponentKind, ComponentRatings } from '@cellwarden/shared';
 
 /** One fitted component of a system, its ratings by kind. */
@@ -55,10 +55,10 @@ export class InstallCircuit extends Model<
   declare updatedAt: CreationOptional<Date>;
 }
 
-const id = { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') };
+const id = generatedUuidKey();
 const stamps = {
-  createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
-  updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+  createdAt: databaseNow(),
+  updatedAt: databaseNow(),
 };
 // double precision columns come back from pg as numbers (float8); DataTypes.DOUBLE says so.
 const double = (allowNull = false) => ({ type: DataTypes.DOUBLE, allowNull });

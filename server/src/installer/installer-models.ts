@@ -3,7 +3,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -11,6 +10,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { CommissioningCheck, CommissioningCheckRequest, EnergyBudgetInput } from '@cellwarden/shared';
 import type { User } from '../accounts/account-models';
 
@@ -61,14 +61,14 @@ export function defineInstallerModels(sequelize: Sequelize) {
   const BoundRun = class extends CommissioningRun {};
   BoundRun.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       installerId: { type: DataTypes.UUID, allowNull: false },
       request: { type: DataTypes.JSONB, allowNull: false },
       status: { type: DataTypes.TEXT, allowNull: false },
       progress: { type: DataTypes.JSONB, defaultValue: {} },
       result: DataTypes.JSONB,
-      startedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      startedAt: databaseNow(),
       finishedAt: DataTypes.DATE,
     },
     {
@@ -85,7 +85,7 @@ export function defineInstallerModels(sequelize: Sequelize) {
   const BoundUpload = class extends Upload {};
   BoundUpload.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       uploadedBy: DataTypes.UUID,
       kind: { type: DataTypes.TEXT, allowNull: false },
@@ -94,20 +94,20 @@ export function defineInstallerModels(sequelize: Sequelize) {
       contentType: { type: DataTypes.TEXT, allowNull: false },
       bytes: { type: DataTypes.INTEGER, allowNull: false },
       caption: { type: DataTypes.TEXT, defaultValue: '' },
-      uploadedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      uploadedAt: databaseNow(),
     },
     { sequelize, modelName: 'Upload', tableName: 'uploads', underscored: true, timestamps: false },
   );
   const BoundBudget = class extends SavedBudget {};
   BoundBudget.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
       budget: { type: DataTypes.JSONB, allowNull: false },
       createdBy: DataTypes.UUID,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
+      updatedAt: databaseNow(),
     },
     { sequelize, modelName: 'EnergyBudget', tableName: 'energy_budgets', underscored: true },
   );

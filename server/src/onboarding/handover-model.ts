@@ -2,7 +2,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -10,6 +9,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { User } from '../accounts/account-models';
 import type { System } from '../systems/system-model';
 import { activeAt } from '../database/active-scope';
@@ -36,11 +36,11 @@ export function defineHandoverModels(sequelize: Sequelize) {
   const BoundHandover = class extends Handover {};
   BoundHandover.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       systemId: { type: DataTypes.UUID, allowNull: false },
       ownerEmail: { type: DataTypes.TEXT, allowNull: false },
       offeredBy: DataTypes.UUID,
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       acceptedAt: DataTypes.DATE,
       acceptedBy: DataTypes.UUID,

@@ -2,13 +2,13 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow } from '../database/columns';
 import type { UserPreferences } from '@cellwarden/shared';
 
 /** One person's display unit and the flag kinds they want e-mailed; no row means the defaults. */
@@ -30,7 +30,7 @@ export function definePreferenceModels(sequelize: Sequelize) {
       userId: { type: DataTypes.UUID, primaryKey: true },
       temperatureUnit: { type: DataTypes.TEXT, allowNull: false },
       emailFlags: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      updatedAt: databaseNow(),
     },
     {
       sequelize,

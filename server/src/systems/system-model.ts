@@ -3,7 +3,6 @@
 import {
   DataTypes,
   Model,
-  fn,
   type CreationOptional,
   type ForeignKey,
   type InferAttributes,
@@ -11,6 +10,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { databaseNow, generatedUuidKey } from '../database/columns';
 import type { ChargeSource, FlagThresholdSettings, SystemSettings } from '@cellwarden/shared';
 import type { Company, User } from '../accounts/account-models';
 
@@ -44,7 +44,7 @@ export function defineSystemModels(sequelize: Sequelize) {
   const BoundSystem = class extends System {};
   BoundSystem.init(
     {
-      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: fn('gen_random_uuid') },
+      id: generatedUuidKey(),
       name: { type: DataTypes.TEXT, allowNull: false },
       kind: { type: DataTypes.TEXT, allowNull: false },
       chemistry: { type: DataTypes.TEXT, allowNull: false },
@@ -61,8 +61,8 @@ export function defineSystemModels(sequelize: Sequelize) {
       timeZone: { type: DataTypes.TEXT, defaultValue: 'UTC' },
       chargeSources: { type: DataTypes.JSONB, defaultValue: [] },
       flagThresholds: { type: DataTypes.JSONB, defaultValue: {} },
-      createdAt: { type: DataTypes.DATE, defaultValue: fn('now') },
-      updatedAt: { type: DataTypes.DATE, defaultValue: fn('now') },
+      createdAt: databaseNow(),
+      updatedAt: databaseNow(),
     },
     { sequelize, modelName: 'System', tableName: 'systems', underscored: true },
   );
