@@ -33,6 +33,8 @@ function fakes(
     lead?: string | null;
     quiet?: { systemId?: string; receivedAt: number; reading: BatteryReading }[];
     systems?: Map<string, StoredSettings>;
+    /** Alerts are stored only once this settles. */
+    alertsStored?: Promise<void>;
   } = {},
 ) {
   let now = START;
@@ -63,7 +65,10 @@ function fakes(
     },
   };
   const alerts: Pick<AlertsService, 'record'> = {
-    record: async (systemId, system, events) => void recorded.push({ systemId, system, events }),
+    async record(systemId, system, events) {
+      await options.alertsStored;
+      recorded.push({ systemId, system, events });
+    },
   };
   const alertsRepository: Pick<AlertsRepository, 'insertPastEpisode'> = {
     insertPastEpisode: async () => undefined,
@@ -170,6 +175,70 @@ describe('live analytics', () => {
     await analytics.process([{ systemId: VAN, deviceId: 'm', reading: reading(START) }]);
     await analytics.sweepSilence();
     expect(recorded.flatMap((r) => r.events).filter((e) => e.kind === 'device-silent')).toEqual([]);
+  });
+
+  describe('a batch at once (processEach)', () => {
+    const row = (systemId: string, t: number, voltage = 13.25) => ({
+      systemId,
+      deviceId: `${systemId}-m`,
+      reading: { ...reading(t), voltage },
+    });
+
+    it("hands over every reading's derived state in each system's order, across batches", async () => {
+      const systems = new Map([
+        ['a', settings],
+        ['b', settings],
+      ]);
+      const { analytics } = fakes({ systems });
+      const seen: [string, number, boolean][] = [];
+      const onDerived = (r: ReturnType<typeof row>, derived: unknown) =>
+        void seen.push([r.systemId, r.reading.measuredAt, derived !== null]);
+      analytics.processEach([row('a', START), row('b', START), row('a', START + 1000)], onDerived);
+      analytics.processEach([row('b', START + 1000), row('a', START + 2000)], onDerived);
+      await jest.runAllTimersAsync();
+      expect(seen.filter(([id]) => id === 'a')).toEqual([
+        ['a', START, true],
+        ['a', START + 1000, true],
+        ['a', START + 2000, true],
+      ]);
+      expect(seen.filter(([id]) => id === 'b')).toEqual([
+        ['b', START, true],
+        ['b', START + 1000, true],
+      ]);
+    });
+
+    it("holds a system's next reading until its alert is stored, and no other system's", async () => {
+      let store!: () => void;
+      const alertsStored = new Promise<void>((resolve) => (store = resolve));
+      const systems = new Map([
+        ['a', settings],
+        ['b', settings],
+      ]);
+      const { analytics, recorded } = fakes({ systems, alertsStored });
+      const seen: string[] = [];
+      // 2 V on a 12 V bank: the pack is cut off, a flag with no minimum duration.
+      analytics.processEach([row('a', START, 2), row('a', START + 1000), row('b', START)], (r) =>
+        seen.push(`${r.systemId}@${r.reading.measuredAt - START}`),
+      );
+      await jest.advanceTimersByTimeAsync(0);
+      expect(seen).toEqual(['b@0']);
+      store();
+      await jest.advanceTimersByTimeAsync(0);
+      expect(seen).toEqual(['b@0', 'a@0', 'a@1000']);
+      // Stored in order: the cut-off raised by the first reading, then ended by the second.
+      expect(recorded.flatMap((r) => r.events.map((e) => `${e.kind} ${e.transition}`))).toEqual([
+        'bms-cutoff-suspected start',
+        'bms-cutoff-suspected end',
+      ]);
+    });
+
+    it('hands over null for the readings of a system without settings', async () => {
+      const { analytics } = fakes();
+      const seen: unknown[] = [];
+      analytics.processEach([row('gone', START)], (_r, derived) => seen.push(derived));
+      await jest.runAllTimersAsync();
+      expect(seen).toEqual([null]);
+    });
   });
 
   describe('loading settings', () => {

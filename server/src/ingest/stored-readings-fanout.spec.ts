@@ -27,8 +27,9 @@ function fakes(options: { markSeenFails?: boolean } = {}) {
   const fanout = createStoredReadingsFanout({
     checks: { onReading: (systemId, r) => void checked.push([systemId, r.measuredAt]) },
     analytics: {
-      process: (rows) =>
-        new Promise((resolve) => held.push({ row: rows[0], release: (derived) => resolve([derived]) })),
+      processEach: (rows, onDerived) => {
+        for (const r of rows) held.push({ row: r, release: (derived) => onDerived(r, derived) });
+      },
     },
     hub: { publish: (event) => void published.push(event) },
     devices: {

@@ -21,7 +21,7 @@ import type { ReadingRow } from '../telemetry/readings-repository';
  */
 export function createStoredReadingsFanout(deps: {
   checks: Pick<CommissioningService, 'onReading'>;
-  analytics: Pick<LiveAnalytics, 'process'>;
+  analytics: Pick<LiveAnalytics, 'processEach'>;
   hub: Pick<ReadingsHub, 'publish'>;
   devices: Pick<DevicesRepository, 'markSeen'>;
   logger: Logger;
@@ -33,18 +33,17 @@ export function createStoredReadingsFanout(deps: {
     for (const { systemId, reading } of rows) deps.checks.onReading(systemId, reading);
     for (const { deviceId, reading } of rows)
       lastSeen.set(deviceId, Math.max(lastSeen.get(deviceId) ?? 0, reading.measuredAt));
-    for (const row of rows)
-      void deps.analytics.process([row]).then(([derived]) =>
-        deps.hub.publish({
+    deps.analytics.processEach(rows, (row, derived) =>
+      deps.hub.publish({
+        systemId: row.systemId,
+        message: {
+          type: 'reading',
           systemId: row.systemId,
-          message: {
-            type: 'reading',
-            systemId: row.systemId,
-            reading: { ...row.reading, receivedAt, deviceId: row.deviceId },
-            derived,
-          },
-        }),
-      );
+          reading: { ...row.reading, receivedAt, deviceId: row.deviceId },
+          derived,
+        },
+      }),
+    );
     deps.devices
       .markSeen(lastSeen)
       .catch((error) => deps.logger.warn('last seen not updated', { error: String(error) }));

@@ -95,7 +95,8 @@ export function deriveSystemState(
   const flagStep = stepFlags(state?.flags, {
     reading,
     estimate: { stateOfCharge, disagreement: estimate.disagreement },
-    settings: { battery: settings.battery, thresholds: settings.thresholds, sources: settings.sources },
+    // The resolved settings are the flag settings too (battery, thresholds, sources): no copy per reading.
+    settings,
   });
   const start = { battery: settings.battery, stateOfCharge, temperature: reading.temperature };
   const derived: DerivedSystemState = {

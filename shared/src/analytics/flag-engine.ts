@@ -3,7 +3,7 @@
 // `checkSilence` on a timer; the next reading ends it.
 import { BatteryReading } from '../telemetry/reading';
 import { ActiveFlag, FlagEvent, FlagKind } from './flag-event';
-import { FLAG_RULES, FlagRule, loadCompensatedVoltage } from './flag-rules';
+import { FLAG_RULES, FlagContext, FlagRule, loadCompensatedVoltage } from './flag-rules';
 import { FlagMemory, FlagSettings } from './flag-settings';
 import { endFlagTrack, FlagTrack, stepFlagTrack } from './flag-tracker';
 
@@ -44,23 +44,39 @@ export function stepFlags(
   if (previous.lastReadingAt !== undefined && reading.measuredAt <= previous.lastReadingAt) {
     return { state: previous, events: [] };
   }
-  const events: FlagEvent[] = [];
-  const tracks: Partial<Record<FlagKind, FlagTrack>> = { ...previous.tracks };
   const silentFor = previous.lastReadingAt === undefined ? 0 : reading.measuredAt - previous.lastReadingAt;
-  events.push(
-    ...endFlagTrack('device-silent', tracks['device-silent'], silentFor / 60_000, reading.measuredAt),
-  );
-  delete tracks['device-silent'];
+  const silent = previous.tracks['device-silent'];
+  const events: FlagEvent[] =
+    silent === undefined ? [] : endFlagTrack('device-silent', silent, silentFor / 60_000, reading.measuredAt);
 
-  const context = { ...input, memory: previous.memory };
+  // The tracks are built afresh rather than copied and pruned with `delete` (which would leave a slow object on
+  // every reading); a rule whose flag is off and stays off adds nothing.
+  const tracks: Partial<Record<FlagKind, FlagTrack>> = {};
+  const context: FlagContext = {
+    reading,
+    estimate: input.estimate,
+    settings,
+    memory: previous.memory,
+  };
+  const { minimumDurationSeconds, releaseDelaySeconds } = settings.thresholds;
   for (const [kind, rule] of RULES) {
-    const minimumMs = settings.thresholds.minimumDurationSeconds[kind] * 1000;
-    const releaseMs = (settings.thresholds.releaseDelaySeconds?.[kind] ?? 0) * 1000;
-    const step = stepFlagTrack(kind, tracks[kind], rule(context), reading.measuredAt, minimumMs, releaseMs);
-    if (step.track === undefined) delete tracks[kind];
-    else tracks[kind] = step.track;
-    events.push(...step.events);
+    const minimumMs = minimumDurationSeconds[kind] * 1000;
+    const releaseMs = (releaseDelaySeconds?.[kind] ?? 0) * 1000;
+    const step = stepFlagTrack(
+      kind,
+      previous.tracks[kind],
+      rule(context),
+      reading.measuredAt,
+      minimumMs,
+      releaseMs,
+    );
+    if (step.track !== undefined) tracks[kind] = step.track;
+    for (const event of step.events) events.push(event);
   }
+  // Kinds the engine has no rule for (none today but silence) keep their tracks as they were.
+  for (const kind in previous.tracks)
+    if (kind !== 'device-silent' && !(kind in FLAG_RULES))
+      tracks[kind as FlagKind] = previous.tracks[kind as FlagKind];
   return {
     state: {
       tracks,
@@ -103,10 +119,11 @@ export function checkSilence(state: FlagState, nowMs: number): { state: FlagStat
 export function activeFlags(state: FlagState | undefined): ActiveFlag[] {
   if (state === undefined) return [];
   const active: ActiveFlag[] = [];
-  for (const [kind, track] of Object.entries(state.tracks) as [FlagKind, FlagTrack | undefined][]) {
+  for (const kind in state.tracks) {
+    const track = state.tracks[kind as FlagKind];
     if (track === undefined || track.phase !== 'active') continue;
     const flag: ActiveFlag = {
-      kind,
+      kind: kind as FlagKind,
       severity: track.severity,
       since: track.since,
       peakValue: track.peak,
@@ -115,7 +132,9 @@ export function activeFlags(state: FlagState | undefined): ActiveFlag[] {
     if (track.sourceId !== undefined) flag.sourceId = track.sourceId;
     active.push(flag);
   }
-  return active.sort((a, b) => severityRank(b) - severityRank(a) || a.since - b.since);
+  return active.length < 2
+    ? active
+    : active.sort((a, b) => severityRank(b) - severityRank(a) || a.since - b.since);
 }
 
 /** A fresh engine state, before any reading. */

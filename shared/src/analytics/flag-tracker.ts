@@ -32,6 +32,13 @@ export interface FlagTrack {
   sourceId?: string;
 }
 
+// A flag that is off and stays off: the answer of nearly every rule on nearly every reading, shared rather than
+// made anew (frozen, so no caller can change it for the others).
+const STAYS_OFF: { track: undefined; events: FlagEvent[] } = Object.freeze({
+  track: undefined,
+  events: Object.freeze([]) as unknown as FlagEvent[],
+});
+
 /** One step of a flag's life: the new track (undefined = off) and the events it produced. */
 export function stepFlagTrack(
   kind: FlagKind,
@@ -42,7 +49,7 @@ export function stepFlagTrack(
   releaseDelayMs = 0,
 ): { track: FlagTrack | undefined; events: FlagEvent[] } {
   if (track === undefined) {
-    if (signal.trigger === undefined) return { track: undefined, events: [] };
+    if (signal.trigger === undefined) return STAYS_OFF;
     const started: FlagTrack = {
       phase: 'pending',
       since: at,
@@ -54,7 +61,7 @@ export function stepFlagTrack(
     return stepPending(kind, started, signal, at, minimumDurationMs);
   }
   if (!signal.holds) {
-    if (track.phase !== 'active') return { track: undefined, events: [] };
+    if (track.phase !== 'active') return STAYS_OFF;
     // A short lapse (a heater's start-up surge pulling the net current negative) does not end the flag.
     const releasingSince = track.releasingSince ?? at;
     if (at - releasingSince < releaseDelayMs) return { track: { ...track, releasingSince }, events: [] };

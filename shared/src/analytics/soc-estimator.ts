@@ -49,9 +49,15 @@ export function stepSocEstimate(
     gap <= MAX_INTEGRATION_GAP_MS
       ? state.stateOfCharge + chargeDelta(reading, gap, battery)
       : state.stateOfCharge;
-  const rested = applyRest(state, reading, battery, clampPercent(counted));
-  const synced = applyEndOfCharge(rested, reading, battery);
-  return withDisagreement({ ...synced, measuredAt: reading.measuredAt }, reading);
+  // One new object per reading, filled in by the steps below: this runs on every reading of every system, and
+  // a copy per step (and a `delete` per absent field, which leaves a slow object) showed in the server's profile.
+  const next: SocEstimate = { stateOfCharge: clampPercent(counted), measuredAt: reading.measuredAt };
+  applyRest(next, state, reading, battery);
+  if (state.lastFullAt !== undefined) next.lastFullAt = state.lastFullAt;
+  applyEndOfCharge(next, state, reading, battery);
+  if (reading.stateOfCharge !== undefined)
+    next.disagreement = Math.abs(reading.stateOfCharge - next.stateOfCharge);
+  return next;
 }
 
 /** The first estimate: the device's own SoC if it reports one, else the load-compensated voltage. */
@@ -64,7 +70,9 @@ function initialEstimate(reading: BatteryReading, battery: ResolvedBatterySetup)
   const stateOfCharge = clampPercent(reading.stateOfCharge ?? fromVoltage);
   const first: SocEstimate = { stateOfCharge, measuredAt: reading.measuredAt };
   if (Math.abs(reading.current) <= battery.restCurrentA) first.restingSince = reading.measuredAt;
-  return withDisagreement(first, reading);
+  if (reading.stateOfCharge !== undefined)
+    first.disagreement = Math.abs(reading.stateOfCharge - first.stateOfCharge);
+  return first;
 }
 
 /** Change in state of charge over `gapMs` at the reading's current, percentage points (ΔAh = I·Δt). */
@@ -78,39 +86,39 @@ function chargeDelta(reading: BatteryReading, gapMs: number, battery: ResolvedBa
   return ((stored * hours) / capacity) * 100;
 }
 
-/** Tracks the rest period and, once it is long enough, pulls the estimate toward the OCV reading once. */
+/**
+ * Tracks the rest period (into `next`, from the previous `state`) and, once it is long enough, pulls the
+ * estimate toward the OCV reading once.
+ */
 function applyRest(
+  next: SocEstimate,
   state: SocEstimate,
   reading: BatteryReading,
   battery: ResolvedBatterySetup,
-  stateOfCharge: number,
-): SocEstimate {
-  const next: SocEstimate = { ...state, stateOfCharge };
-  if (Math.abs(reading.current) > battery.restCurrentA) {
-    delete next.restingSince;
-    delete next.restCorrected;
-    return next;
-  }
-  next.restingSince = state.restingSince ?? reading.measuredAt;
-  const restedLongEnough = reading.measuredAt - next.restingSince >= battery.restMinutes * 60_000;
-  if (!restedLongEnough || state.restCorrected) return next;
+): void {
+  if (Math.abs(reading.current) > battery.restCurrentA) return;
+  const restingSince = state.restingSince ?? reading.measuredAt;
+  next.restingSince = restingSince;
+  if (state.restCorrected !== undefined) next.restCorrected = state.restCorrected;
+  const restedLongEnough = reading.measuredAt - restingSince >= battery.restMinutes * 60_000;
+  if (!restedLongEnough || state.restCorrected) return;
   const fromVoltage = stateOfChargeFromOpenCircuit(
     battery.chemistry,
     battery.nominalVoltage,
     reading.voltage,
   );
   const weight = openCircuitWeight(battery.chemistry, fromVoltage);
-  next.stateOfCharge = clampPercent(stateOfCharge + weight * (fromVoltage - stateOfCharge));
+  next.stateOfCharge = clampPercent(next.stateOfCharge + weight * (fromVoltage - next.stateOfCharge));
   next.restCorrected = true;
-  return next;
 }
 
 /** Sets the estimate to 100 % once the (temperature-compensated) charged voltage and tail current have held long enough. */
 function applyEndOfCharge(
+  next: SocEstimate,
   state: SocEstimate,
   reading: BatteryReading,
   battery: ResolvedBatterySetup,
-): SocEstimate {
+): void {
   // The charged voltage refers to 25 °C; a compensating charger holds a hot lead-acid bank lower (and a cold
   // one higher), so the threshold follows the pack temperature or a hot bank would never count as full.
   const chargedVoltage =
@@ -120,27 +128,18 @@ function applyEndOfCharge(
     reading.voltage >= chargedVoltage &&
     reading.current >= -battery.restCurrentA &&
     reading.current <= battery.tailCurrentA;
-  if (!atTail) {
-    const next = { ...state };
-    delete next.chargedSince;
-    return next;
-  }
+  if (!atTail) return;
   const chargedSince = state.chargedSince ?? reading.measuredAt;
+  next.chargedSince = chargedSince;
   const held = reading.measuredAt - chargedSince >= battery.chargedHoldMinutes * 60_000;
-  if (!held) return { ...state, chargedSince };
-  return { ...state, chargedSince, stateOfCharge: 100, lastFullAt: reading.measuredAt };
+  if (!held) return;
+  next.stateOfCharge = 100;
+  next.lastFullAt = reading.measuredAt;
 }
 
 /** Terminal voltage corrected to open circuit: V − I·R (charge current lifts it, load sags it). */
 export function compensatedVoltage(reading: BatteryReading, battery: ResolvedBatterySetup): number {
   return reading.voltage - reading.current * packInternalResistance(battery);
-}
-
-function withDisagreement(state: SocEstimate, reading: BatteryReading): SocEstimate {
-  const next = { ...state };
-  if (reading.stateOfCharge === undefined) delete next.disagreement;
-  else next.disagreement = Math.abs(reading.stateOfCharge - state.stateOfCharge);
-  return next;
 }
 
 function clampPercent(value: number): number {
