@@ -8,7 +8,12 @@ import type { WebSocketSubjectConfig } from 'rxjs/webSocket';
 import { LiveHeadStart } from './live-head-start';
 import { WEB_SOCKET_FACTORY, type SystemStreamEvent } from './live-stream';
 import { OfflineStore } from './offline/offline-store';
-import { STATUS_HEAD_START, type StatusHeadStartAnswer } from './session-head-start';
+import {
+  STATUS_HEAD_START,
+  SYSTEM_HEAD_START,
+  type StatusHeadStartAnswer,
+  type SystemHeadStartAnswer,
+} from './session-head-start';
 
 class FakeSocket extends Subject<unknown> {
   readonly sent: unknown[] = [];
@@ -47,9 +52,12 @@ describe('LiveHeadStart', () => {
   let headStart: LiveHeadStart;
   // The status request the page's script sent before the app ran, per system (none unless a test sets one).
   let early: Record<string, Promise<StatusHeadStartAnswer>>;
+  // The same for the system's description.
+  let earlySystem: Record<string, Promise<SystemHeadStartAnswer>>;
 
   beforeEach(() => {
     early = {};
+    earlySystem = {};
     jest.useFakeTimers();
     sockets = [];
     TestBed.configureTestingModule({
@@ -70,6 +78,14 @@ describe('LiveHeadStart', () => {
           useValue: (systemId: string) => {
             const started = early[systemId] ?? null;
             delete early[systemId];
+            return started;
+          },
+        },
+        {
+          provide: SYSTEM_HEAD_START,
+          useValue: (systemId: string) => {
+            const started = earlySystem[systemId] ?? null;
+            delete earlySystem[systemId];
             return started;
           },
         },
@@ -154,5 +170,36 @@ describe('LiveHeadStart', () => {
     headStart.status('van-1').subscribe((s) => seen.push(s));
     http.expectOne('/api/systems/van-1/status').flush({ status: STATUS });
     expect(seen).toEqual([STATUS]);
+  });
+
+  describe("the system's description", () => {
+    const SUMMARY = { id: 'van-1', name: 'Winter van', chemistry: 'lifepo4' };
+
+    it('takes over the one the page asked for before the app ran, once', async () => {
+      earlySystem['van-1'] = Promise.resolve({ status: 200, body: { system: SUMMARY as never } });
+      const seen: unknown[] = [];
+      headStart.system('van-1').subscribe((s) => seen.push(s));
+      await Promise.resolve();
+      await Promise.resolve();
+      http.expectNone('/api/systems/van-1');
+      expect(seen).toEqual([SUMMARY]);
+      // A later view asks the server itself.
+      headStart.system('van-1').subscribe();
+      http.expectOne('/api/systems/van-1').flush({ system: SUMMARY });
+    });
+
+    it("asks the usual way when the page's own request failed, or was for another system", async () => {
+      earlySystem['van-1'] = Promise.resolve({ status: 0, body: null });
+      const seen: unknown[] = [];
+      headStart.system('van-1').subscribe((s) => seen.push(s));
+      await Promise.resolve();
+      await Promise.resolve();
+      http.expectOne('/api/systems/van-1').flush({ system: SUMMARY });
+      expect(seen).toEqual([SUMMARY]);
+
+      earlySystem['van-1'] = Promise.resolve({ status: 200, body: { system: SUMMARY as never } });
+      headStart.system('van-2').subscribe();
+      http.expectOne('/api/systems/van-2').flush({ system: { ...SUMMARY, id: 'van-2' } });
+    });
   });
 });

@@ -1,10 +1,10 @@
 import { Injectable, inject } from '@angular/core';
-import type { SystemStatus } from '@cellwarden/shared';
+import type { SystemStatus, SystemSummary } from '@cellwarden/shared';
 import { Observable, Subscription, catchError, from, map, shareReplay } from 'rxjs';
 import { Api } from './api';
 import { LiveStream, type SystemStreamEvent } from './live-stream';
 import { OfflineStore } from './offline/offline-store';
-import { STATUS_HEAD_START } from './session-head-start';
+import { STATUS_HEAD_START, SYSTEM_HEAD_START } from './session-head-start';
 
 /** How long a head start waits for its view before it lets go of the socket subscription it holds. */
 const UNCLAIMED_AFTER_MS = 10_000;
@@ -31,6 +31,7 @@ export class LiveHeadStart {
   private readonly stream = inject(LiveStream);
   private readonly offline = inject(OfflineStore);
   private readonly takeEarlyStatus = inject(STATUS_HEAD_START);
+  private readonly takeEarlySystem = inject(SYSTEM_HEAD_START);
   private pending: Pending | null = null;
 
   /** Starts the status request and the stream subscription for `systemId`, dropping an unclaimed earlier one. */
@@ -61,6 +62,22 @@ export class LiveHeadStart {
     pending.statusClaimed = true;
     this.releaseIfClaimed();
     return pending.status;
+  }
+
+  /**
+   * The system's description: the one the page's head-start script asked for (for its first glance) if it is
+   * this system's and untaken, else a new request; a failed early answer asks again the usual way.
+   */
+  system(systemId: string): Observable<SystemSummary> {
+    const early = this.takeEarlySystem(systemId);
+    if (!early) return this.api.system(systemId);
+    return from(early).pipe(
+      map((answer) => {
+        if (!answer.body || answer.status < 200 || answer.status >= 300) throw new Error('no early system');
+        return answer.body.system;
+      }),
+      catchError(() => this.api.system(systemId)),
+    );
   }
 
   /** The system's stream events: those that came early first, then the live ones, as `LiveStream.events`. */

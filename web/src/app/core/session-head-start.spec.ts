@@ -9,6 +9,7 @@ import {
   SESSION_HEAD_START,
   takeSessionHeadStart,
   takeStatusHeadStart,
+  takeSystemHeadStart,
   type SessionHeadStartAnswer,
 } from './session-head-start';
 
@@ -115,5 +116,28 @@ describe('takeStatusHeadStart', () => {
   it('gives nothing for another system (the visitor moved on before the view started)', () => {
     holder.cwStatusHeadStart = { systemId: 'van-1', answer: Promise.resolve({ status: 200, body: null }) };
     expect(takeStatusHeadStart('van-2')).toBeNull();
+  });
+});
+
+describe('takeSystemHeadStart', () => {
+  const holder = globalThis as { cwSystemHeadStart?: unknown; cwStatusHeadStart?: unknown };
+  afterEach(() => {
+    delete holder.cwSystemHeadStart;
+    delete holder.cwStatusHeadStart;
+  });
+
+  it("hands out the page's request for its own system's description, once, apart from the status", () => {
+    const answer = Promise.resolve({ status: 200, body: null });
+    const status = Promise.resolve({ status: 200, body: null });
+    holder.cwSystemHeadStart = { systemId: 'van-1', answer };
+    holder.cwStatusHeadStart = { systemId: 'van-1', answer: status };
+    expect(takeSystemHeadStart('van-1')).toBe(answer);
+    expect(takeSystemHeadStart('van-1')).toBeNull();
+    expect(takeStatusHeadStart('van-1')).toBe(status);
+  });
+
+  it('gives nothing for another system', () => {
+    holder.cwSystemHeadStart = { systemId: 'van-1', answer: Promise.resolve({ status: 200, body: null }) };
+    expect(takeSystemHeadStart('van-2')).toBeNull();
   });
 });

@@ -17,7 +17,7 @@ export const LIVE_MAX_POINTS = 2400;
 export type LiveLoad = LoadState<LiveState>;
 
 /** The system's description, or 'missing' when it cannot be seen. */
-export function systemOrMissing(api: Api, id: string): Observable<SystemSummary | 'missing'> {
+export function systemOrMissing(api: Pick<Api, 'system'>, id: string): Observable<SystemSummary | 'missing'> {
   return api.system(id).pipe(catchError(() => of('missing' as const)));
 }
 

@@ -293,4 +293,57 @@ describe('Live', () => {
     // 71 % of 160 Ah usable.
     expect(text()).toMatch(/Charge left\s*114 Ah/);
   });
+
+  describe('the first glance the page painted before the app ran', () => {
+    const paintFirstGlance = () => {
+      const glance = document.createElement('section');
+      glance.id = 'cw-first-glance';
+      document.body.appendChild(glance);
+    };
+    afterEach(() => document.getElementById('cw-first-glance')?.remove());
+
+    it('stands while the status is on its way and gives way once the tiles show values', async () => {
+      paintFirstGlance();
+      const fixture = TestBed.createComponent(Live);
+      fixture.componentRef.setInput('id', 'van-1');
+      fixture.detectChanges();
+      await fixture.whenStable();
+      expect(document.getElementById('cw-first-glance')).not.toBeNull();
+
+      const http = TestBed.inject(HttpTestingController);
+      http.expectOne('/api/systems/van-1').flush({ system: summary });
+      http.expectOne('/api/systems/van-1/status').flush({
+        status: { systemId: 'van-1', latestReading: reading(), derived: derived(), activeAlerts: [] },
+      });
+      fixture.detectChanges();
+      await fixture.whenStable();
+      expect((fixture.nativeElement as HTMLElement).querySelector('.tiles .tile dd')).not.toBeNull();
+      expect(document.getElementById('cw-first-glance')).toBeNull();
+    });
+
+    it('gives way to the message when the system cannot be seen', async () => {
+      paintFirstGlance();
+      const fixture = TestBed.createComponent(Live);
+      fixture.componentRef.setInput('id', 'van-1');
+      fixture.detectChanges();
+      TestBed.inject(HttpTestingController)
+        .expectOne('/api/systems/van-1')
+        .flush(
+          { error: { code: 'not_found', message: 'System not found' } },
+          { status: 404, statusText: 'No' },
+        );
+      fixture.detectChanges();
+      await fixture.whenStable();
+      expect(document.getElementById('cw-first-glance')).toBeNull();
+    });
+
+    it('goes with the view when the visitor leaves before the values came', async () => {
+      paintFirstGlance();
+      const fixture = TestBed.createComponent(Live);
+      fixture.componentRef.setInput('id', 'van-1');
+      fixture.detectChanges();
+      fixture.destroy();
+      expect(document.getElementById('cw-first-glance')).toBeNull();
+    });
+  });
 });

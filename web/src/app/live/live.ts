@@ -1,7 +1,8 @@
-import { DecimalPipe } from '@angular/common';
+import { DOCUMENT, DecimalPipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
+  DestroyRef,
   LOCALE_ID,
   afterRenderEffect,
   computed,
@@ -34,6 +35,7 @@ import { BankMonitors } from './bank-monitors/bank-monitors';
 import { ChargeColumn } from './charge-column/charge-column';
 import { isColdCharging } from './cold-charge';
 import { describeSeries } from '../core/describe-series';
+import { removeFirstGlance } from './first-glance';
 import { FlagList } from './flag-list/flag-list';
 import { liveChartPoints, liveStates, systemOrMissing, systemSettings } from './live-feeds';
 import { leadMonitorId, type ActiveFlag } from './live-state';
@@ -77,13 +79,15 @@ export class Live {
   private readonly headStart = inject(LiveHeadStart);
   private readonly locale = inject(LOCALE_ID);
   private readonly colours = inject(ChartColours);
+  private readonly document = inject(DOCUMENT);
   protected readonly now = injectNow(5_000);
 
   /** The system id from the route. */
   readonly id = input.required<string>();
 
   private readonly id$ = toObservable(this.id);
-  protected readonly system = toSignal(this.id$.pipe(switchMap((id) => systemOrMissing(this.api, id))));
+  // The description the page's head-start script asked for (its first glance needed it), else a new request.
+  protected readonly system = toSignal(this.id$.pipe(switchMap((id) => systemOrMissing(this.headStart, id))));
   protected readonly load = toSignal(
     // The status and stream the route's head start asked for while this view's code loaded (else new ones).
     this.id$.pipe(switchMap((id) => liveStates(this.headStart, this.headStart, id))),
@@ -196,6 +200,12 @@ export class Live {
   };
 
   constructor() {
+    // The first glance the head-start script painted gives way in the same task as this view's values (or its
+    // message) render, before the browser paints: never both on screen, never a gap between them.
+    afterRenderEffect(() => {
+      if (this.load().status !== 'loading' || this.system() === 'missing') removeFirstGlance(this.document);
+    });
+    inject(DestroyRef).onDestroy(() => removeFirstGlance(this.document));
     // chart.js lays out its axes and draws in the same task as the tiles render (about 300 ms for three hours
     // of readings on a busy 2-core machine), so the first values would wait for the chart. It gets its points
     // after the frame that shows the values: the animation frame comes before that paint, the timeout after it.
