@@ -11,13 +11,15 @@ export interface WaterfallRow {
 
 // Marks the dashboard sets on itself (web/src/main.ts): its code has run, and bootstrap has finished.
 const PAGE_MARKS = ['cw:main-start', 'cw:bootstrapped'];
-// The selector of the first live value, watched from inside the page so its instant is exact.
-const FIRST_VALUE_WATCH = (selector: string) => `
-  new MutationObserver((_m, observer) => {
-    if (!document.querySelector(${JSON.stringify(selector)})) return;
-    performance.mark('cw:first-value');
-    observer.disconnect();
-  }).observe(document, { childList: true, subtree: true, characterData: true });
+// Each selector is watched from inside the page so its instant is exact: the first live value (the head-start
+// script's first glance or the live view's tiles, whichever shows first) and the live view complete (its tiles).
+const FIRST_VALUE_WATCH = (marks: Record<string, string>) => `
+  for (const [name, selector] of Object.entries(${JSON.stringify(marks)}))
+    new MutationObserver((_m, observer) => {
+      if (!document.querySelector(selector)) return;
+      performance.mark(name);
+      observer.disconnect();
+    }).observe(document, { childList: true, subtree: true, characterData: true });
   // Stretches of at least 50 ms when the page's main thread ran script, layout or paint without a break.
   new PerformanceObserver((list) => {
     for (const task of list.getEntries()) performance.mark('cw:long-task', { startTime: task.startTime, detail: task.duration });
@@ -28,8 +30,14 @@ const FIRST_VALUE_WATCH = (selector: string) => `
  * document's own request) with the WebSocket's handshake and first reading, and the page's own marks. Call
  * before navigating; `rows()` after the first value is on screen.
  */
-export async function recordWaterfall(page: Page, cdp: CDPSession, selector: string) {
-  await page.addInitScript(FIRST_VALUE_WATCH(selector));
+export async function recordWaterfall(
+  page: Page,
+  cdp: CDPSession,
+  selectors: { firstValue: string; complete?: string },
+) {
+  const watched: Record<string, string> = { 'cw:first-value': selectors.firstValue };
+  if (selectors.complete) watched['cw:live-view-complete'] = selectors.complete;
+  await page.addInitScript(FIRST_VALUE_WATCH(watched));
   const started = new Map<string, { url: string; at: number }>();
   const ended = new Map<string, number>();
   const socket: { created?: number; open?: number; subscribeSent?: number; firstReading?: number } = {};
@@ -94,7 +102,7 @@ export async function recordWaterfall(page: Page, cdp: CDPSession, selector: str
               at: m.startTime,
               ms: (m as PerformanceMark).detail as number | null,
             })),
-        [...PAGE_MARKS, 'cw:first-value', 'cw:long-task'],
+        [...PAGE_MARKS, 'cw:first-value', 'cw:live-view-complete', 'cw:long-task'],
       )) as { name: string; at: number; ms: number | null }[];
       for (const mark of marks)
         rows.push(
