@@ -12,6 +12,7 @@ import {
   splitDeviceName,
   unitOfMeasurement,
 } from './reading-measurement';
+import { decodeCommonPack } from './common-pack';
 import { resolvePack } from './resolve-pack';
 import { SenmlError } from './senml-error';
 import { ResolvedSenmlRecord, SenmlRecord } from './senml-record';
@@ -82,6 +83,15 @@ function checkId(field: string, id: string): void {
 
 /** Decodes and validates a pack (already JSON-parsed `unknown`) into readings grouped by measured time; throws SenmlError / ReadingValidationError with code+field. */
 export function decodeReadingPack(
+  pack: unknown,
+  options: { now: number; expectedDeviceId?: string },
+): { deviceId: string; readings: BatteryReading[] } {
+  // The common pack in one pass; anything else, and every refusal, through the general path below.
+  return decodeCommonPack(pack, options) ?? decodeReadingPackFully(pack, options);
+}
+
+/** `decodeReadingPack` the general way: every record resolved (RFC 8428 §4.6), then grouped and checked. */
+export function decodeReadingPackFully(
   pack: unknown,
   options: { now: number; expectedDeviceId?: string },
 ): { deviceId: string; readings: BatteryReading[] } {
@@ -255,6 +265,10 @@ export function parseReadingPayload(
   return decodeReadingPack(pack, options);
 }
 
+// RFC 8259 §8.1: JSON exchanged between systems is UTF-8; fatal refuses malformed bytes instead of silently
+// replacing them. One decoder for every payload: a decode without `stream` starts afresh each time.
+const UTF8 = new TextDecoder('utf-8', { fatal: true });
+
 function payloadText(payload: Uint8Array | string): string {
   const size = payloadSize(payload);
   if (size > MAX_READING_PAYLOAD_BYTES) {
@@ -266,9 +280,7 @@ function payloadText(payload: Uint8Array | string): string {
   // RFC 8259 §8.1: a parser may ignore a leading byte order mark; the byte form loses it in TextDecoder.
   if (typeof payload === 'string') return payload.startsWith('\ufeff') ? payload.slice(1) : payload;
   try {
-    // RFC 8259 §8.1: JSON exchanged between systems is UTF-8; fatal refuses malformed bytes instead of
-    // silently replacing them.
-    return new TextDecoder('utf-8', { fatal: true }).decode(payload);
+    return UTF8.decode(payload);
   } catch (cause) {
     throw new SenmlError('payload_not_utf8', 'payload must be UTF-8 text; got malformed bytes', { cause });
   }
