@@ -40,10 +40,17 @@ const system: StoredSystem = {
 function fakes(grants: GrantFacts[] = []) {
   const lookups: string[] = [];
   const visibilityAsked: Visibility[] = [];
-  const repository: Pick<SystemsRepository, 'findById' | 'listVisible'> = {
+  const ownershipLookups: string[] = [];
+  const repository: Pick<SystemsRepository, 'findById' | 'findOwnership' | 'listVisible'> = {
     async findById(id) {
       lookups.push(id);
       return id === SYSTEM_ID ? { ...system } : undefined;
+    },
+    async findOwnership(id) {
+      ownershipLookups.push(id);
+      return id === SYSTEM_ID
+        ? { id: system.id, ownerId: system.ownerId, installerCompanyId: system.installerCompanyId }
+        : undefined;
     },
     async listVisible(visibility) {
       visibilityAsked.push(visibility);
@@ -54,7 +61,7 @@ function fakes(grants: GrantFacts[] = []) {
     factsForSystem: async (systemId) => (systemId === SYSTEM_ID ? grants : []),
   };
   const service = createSystemsService({ repository, grants: grantsRepository, now: () => NOW });
-  return { service, lookups, visibilityAsked };
+  return { service, lookups, ownershipLookups, visibilityAsked };
 }
 
 const viewGrant = (overrides: Partial<GrantFacts> = {}): GrantFacts => ({
@@ -130,6 +137,22 @@ describe('systems service: opening a system through the access policy', () => {
     const { service } = fakes();
     expect(await statusOf(service.getFor(fitter, SYSTEM_ID, 'commission'))).toBe('ok');
     expect(await statusOf(service.getFor(fitter, SYSTEM_ID, 'manage-grants'))).toBe(403);
+  });
+
+  it('authorizes by ownership alone, with the same 404 and 403 answers, never reading the summary', async () => {
+    const { service, lookups, ownershipLookups } = fakes([viewGrant()]);
+    expect(await service.authorize(owner, SYSTEM_ID, 'export')).toEqual({
+      id: SYSTEM_ID,
+      ownerId: OWNER_ID,
+      installerCompanyId: INSTALLERS,
+    });
+    expect(await statusOf(service.authorize(grantee, SYSTEM_ID))).toBe('ok');
+    expect(await statusOf(service.authorize(grantee, SYSTEM_ID, 'configure'))).toBe(403);
+    expect(await statusOf(service.authorize(stranger, SYSTEM_ID))).toBe(404);
+    expect(await statusOf(service.authorize(owner, MISSING_ID))).toBe(404);
+    expect(await statusOf(service.authorize(owner, 'not-a-uuid'))).toBe(404);
+    expect(lookups).toEqual([]);
+    expect(ownershipLookups).toEqual([SYSTEM_ID, SYSTEM_ID, SYSTEM_ID, SYSTEM_ID, MISSING_ID]);
   });
 
   it('lists with company systems only for installers and admins, at the clock’s time', async () => {

@@ -27,10 +27,10 @@ function fakes() {
       return [point];
     },
   };
-  const systems: Pick<SystemsService, 'getFor'> = {
-    async getFor(user, systemId) {
+  const systems: Pick<SystemsService, 'authorize'> = {
+    async authorize(user, systemId) {
       if (user.id !== viewer.id || systemId !== SYSTEM_ID) throw notFound('System');
-      return { id: SYSTEM_ID } as Awaited<ReturnType<SystemsService['getFor']>>;
+      return { id: SYSTEM_ID, ownerId: viewer.id, installerCompanyId: null };
     },
   };
   const audit: Pick<AuditService, 'record'> = {

@@ -12,7 +12,7 @@ const MAX_RANGE_MS = 400 * 24 * 3600 * 1000;
 
 /** History of one system's readings, within the point budget. */
 export function createReadingsService(deps: {
-  systems: Pick<SystemsService, 'getFor'>;
+  systems: Pick<SystemsService, 'authorize'>;
   repository: Pick<ReadingsRepository, 'listDownsampled'>;
   audit: Pick<AuditService, 'record'>;
   now: () => number;
@@ -31,7 +31,7 @@ export function createReadingsService(deps: {
         ? deps.repository.listDownsampled(systemId, from, to, bucketMs, POINT_BUDGET)
         : undefined;
       reading?.catch(() => undefined); // settled below, or dropped when access is refused
-      const system = await deps.systems.getFor(user, systemId);
+      const system = await deps.systems.authorize(user, systemId);
       // The view is recorded as the answer goes out, not before it: recording never throws (a failed insert is
       // logged), so waiting for its commit would only delay the answer.
       void deps.audit.record(
