@@ -23,6 +23,9 @@ export interface AppDeps {
 export function createApp(deps: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
+  // Every API answer is no-store, so a browser never revalidates one: hashing each body for an ETag (a whole
+  // history series, say) would be work for nothing. Static files keep the ETags serve-static gives them.
+  app.set('etag', false);
   // Off unless configured: otherwise anyone could choose, through X-Forwarded-For, the address their
   // sign-in attempts are counted against.
   app.set('trust proxy', deps.trustProxy);
