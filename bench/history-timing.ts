@@ -58,9 +58,9 @@ export async function timeHistory(options: {
     const api = async () => {
       const started = performance.now();
       const response = await fetch(url, { headers: { authorization: `Bearer ${options.token}` } });
-      const body = (await response.json()) as { points: unknown[] };
+      const body = (await response.json()) as { columns: { measuredAt: number[] } };
       if (!response.ok) throw new Error(`history answered ${response.status}`);
-      return { ms: performance.now() - started, points: body.points.length };
+      return { ms: performance.now() - started, points: body.columns.measuredAt.length };
     };
     await sql();
     await api();

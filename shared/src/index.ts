@@ -45,6 +45,7 @@ export type {
   SystemSummary,
 } from './api/api-contract';
 export { SYSTEM_ACTIONS } from './api/api-contract';
+export { fromHistoryColumns, toHistoryColumns, type HistoryColumns } from './api/history-columns';
 export {
   READINGS_CSV_HEADER,
   ReadingsCsvError,

@@ -105,7 +105,7 @@ it('serves history, the fleet list and the export from the replica, equal to the
     expect(fromReplica.text).toEqual(fromPrimary.text);
   }
   const history = (await get(onReplica, paths[0])).body;
-  expect(history.points).toHaveLength(300);
+  expect(history.columns.measuredAt).toHaveLength(300);
 });
 
 it('keeps writes on the primary while the replica is down, and reads then fail rather than fall back', async () => {

@@ -176,6 +176,9 @@ it('keeps a history series within the point budget for a long range', async () =
     .query({ from: new Date(Date.now() - 365 * 24 * 3600_000).toISOString(), to: new Date().toISOString() })
     .set('Authorization', `Bearer ${ownerToken}`);
   expect(response.status).toBe(200);
-  expect(response.body.points.length).toBeGreaterThan(0);
-  expect(response.body.points.length).toBeLessThanOrEqual(2000);
+  // Sent as columns: every column holds one entry per point.
+  const { measuredAt, voltage } = response.body.columns;
+  expect(measuredAt.length).toBeGreaterThan(0);
+  expect(measuredAt.length).toBeLessThanOrEqual(2000);
+  expect(voltage).toHaveLength(measuredAt.length);
 });

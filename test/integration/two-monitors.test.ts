@@ -2,6 +2,7 @@ import { connectAsync, type MqttClient } from 'mqtt';
 import request from 'supertest';
 import {
   encodeReadingPack,
+  fromHistoryColumns,
   readingsTopic,
   type BatteryReading,
   type StreamMessage,
@@ -112,7 +113,8 @@ it('shows both monitors labelled and keeps the headline, history and analytics o
     .set(auth());
   expect(history.status).toBe(200);
   expect(history.body.resolution).toBe('raw');
-  expect(history.body.points.length).toBe(10);
-  for (const point of history.body.points) expect(point.voltage).toBeCloseTo(13.2, 6);
+  const points = fromHistoryColumns(history.body.columns);
+  expect(points.length).toBe(10);
+  for (const point of points) expect(point.voltage).toBeCloseTo(13.2, 6);
   stream.socket.close();
 }, 30_000);

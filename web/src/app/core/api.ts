@@ -1,6 +1,6 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { SystemStatus } from '@cellwarden/shared';
+import { fromHistoryColumns, type HistoryColumns, type SystemStatus } from '@cellwarden/shared';
 import { Observable, map } from 'rxjs';
 import type { HistoryPoint, SystemSummary, User } from './system-summary';
 
@@ -50,7 +50,9 @@ export class Api {
   /** Stored readings of one system between two instants, downsampled by the server. */
   readings(id: string, from: Date, to: Date): Observable<ReadingHistory> {
     return this.http
-      .get<ReadingHistory>(systemPath(id, '/readings'), { params: rangeParams(from, to) })
-      .pipe(map((body) => ({ resolution: body.resolution, points: body.points ?? [] })));
+      .get<{ resolution: string; columns: HistoryColumns }>(systemPath(id, '/readings'), {
+        params: rangeParams(from, to),
+      })
+      .pipe(map((body) => ({ resolution: body.resolution, points: fromHistoryColumns(body.columns) })));
   }
 }

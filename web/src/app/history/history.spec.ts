@@ -8,7 +8,7 @@ import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing'
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { AlertEvent } from '@cellwarden/shared';
+import { toHistoryColumns, type AlertEvent } from '@cellwarden/shared';
 import { BaseChartDirective } from 'ng2-charts';
 import { ChartFigure } from '../core/chart-figure/chart-figure';
 import { flagText } from '../core/flag-text';
@@ -80,7 +80,7 @@ describe('History', () => {
     const { fixture, readings, alerts } = await render();
     readings.flush({
       resolution: '5m',
-      points: [{ measuredAt: NOW - HOUR, voltage: 13.2, current: 3, temperature: -1 }],
+      columns: toHistoryColumns([{ measuredAt: NOW - HOUR, voltage: 13.2, current: 3, temperature: -1 }]),
     });
     alerts.flush({ alerts: [alert] });
     await fixture.whenStable();
@@ -92,7 +92,7 @@ describe('History', () => {
 
   it('puts a chosen preset in the address', async () => {
     const { loader, readings, alerts } = await render();
-    readings.flush({ resolution: 'raw', points: [] });
+    readings.flush({ resolution: 'raw', columns: { measuredAt: [] } });
     alerts.flush({ alerts: [] });
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     await (await loader.getHarness(MatButtonToggleHarness.with({ text: '7 d' }))).check();
@@ -103,7 +103,7 @@ describe('History', () => {
 
   it('refuses a custom range that ends before it starts', async () => {
     const { fixture, loader, readings, alerts } = await render();
-    readings.flush({ resolution: 'raw', points: [] });
+    readings.flush({ resolution: 'raw', columns: { measuredAt: [] } });
     alerts.flush({ alerts: [] });
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     await (
@@ -129,7 +129,7 @@ describe('History', () => {
 
   it('zooms into an alert’s time when asked', async () => {
     const { loader, readings, alerts } = await render();
-    readings.flush({ resolution: 'raw', points: [] });
+    readings.flush({ resolution: 'raw', columns: { measuredAt: [] } });
     alerts.flush({ alerts: [alert] });
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Zoom to it' }))).click();
@@ -145,7 +145,7 @@ describe('History', () => {
     const { fixture, loader, readings, alerts } = await render();
     readings.flush({
       resolution: 'raw',
-      points: [{ measuredAt: NOW - HOUR, voltage: 13, current: 1, temperature: -4 }],
+      columns: toHistoryColumns([{ measuredAt: NOW - HOUR, voltage: 13, current: 1, temperature: -4 }]),
     });
     alerts.flush({ alerts: [] });
     const hidden = () =>
@@ -174,7 +174,7 @@ describe('History', () => {
       from: '2026-12-02T06:00:00.000Z',
       to: '2026-12-02T10:00:00.000Z',
     });
-    readings.flush({ resolution: '240s', points: [] });
+    readings.flush({ resolution: '240s', columns: { measuredAt: [] } });
     alerts.flush({
       alerts: [{ ...alert, startedAt: Date.UTC(2026, 11, 2, 7), endedAt: Date.UTC(2026, 11, 2, 8) }],
     });

@@ -135,7 +135,9 @@ describe('Live', () => {
         ...status,
       },
     });
-    http.expectOne((r) => r.url === '/api/systems/van-1/readings').flush({ resolution: 'raw', points: [] });
+    http
+      .expectOne((r) => r.url === '/api/systems/van-1/readings')
+      .flush({ resolution: 'raw', columns: { measuredAt: [] } });
     const settingsRequest = http.expectOne('/api/systems/van-1/settings');
     if (settings) settingsRequest.flush({ settings });
     else
