@@ -5,6 +5,8 @@
 // it, whose energy is corrected by the difference (in that reading's own minute and hour). Each new reading is
 // found by index lookups of its neighbours, so the cost does not grow with the history already stored.
 
+import { epochMs } from '../database/sql-values';
+
 // Energy between two readings is counted only across gaps up to this long; a longer gap is a silence, not a
 // load, and a reading with no reading before it (the first ever, or the first after a silence) carries none.
 export const MAX_INTEGRATION_GAP_SECONDS = 300;
@@ -179,7 +181,9 @@ ${changes}_new AS (
 /**
  * Stores a batch bound as ten parallel arrays (system, measured time in epoch ms, device, voltage, current, temperature,
  * state of charge, power, source currents as JSON text, received time) and updates both rollups from the
- * rows that were new; returns the keys of those rows. $11 and $12 bound the neighbour lookups (the batch's
+ * rows that were new; returns one row: how many were new and, only when some were not, their keys (system, measured
+ * time in epoch ms, device) as three arrays. Every row of a batch is usually new, and a row per reading (a uuid,
+ * a timestamp and a text to parse each) was then read for nothing. $11 and $12 bound the neighbour lookups (the batch's
  * earliest time less the gap cap, its latest plus it), so the planner reads only the months they can lie in.
  */
 export const INSERT_READINGS_WITH_ROLLUPS = `
@@ -188,7 +192,11 @@ minute_changes AS (${MINUTE_CHANGES}),
 hour_changes AS (${HOUR_CHANGES}),
 ${applyTo('rollups_1m', 'minute_changes')},
 ${applyTo('rollups_1h', 'hour_changes')}
-SELECT system_id AS "systemId", measured_at AS "measuredAt", device_id AS "deviceId" FROM stored`;
+SELECT count(*)::int AS stored,
+  CASE WHEN count(*) < cardinality($1::uuid[]) THEN array_agg(system_id) END AS "systemIds",
+  CASE WHEN count(*) < cardinality($1::uuid[]) THEN array_agg(${epochMs('measured_at')}) END AS "measuredAts",
+  CASE WHEN count(*) < cardinality($1::uuid[]) THEN array_agg(device_id) END AS "deviceIds"
+FROM stored`;
 
 /**
  * Serialises writers of the same systems (bound as $1 uuid[]) until the transaction ends, so each batch's
