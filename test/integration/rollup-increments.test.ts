@@ -212,3 +212,16 @@ it('stores one batch whose readings jump between months far from now, each in it
   // A redelivery of the whole batch adds nothing and is reported as nothing new.
   expect(await repository.insertBatch(rowsOf(systemId, readings))).toEqual([]);
 });
+
+it('reports exactly the readings of a batch that were new when some of it was stored before', async () => {
+  const systemId = await newSystem();
+  const readings: BatteryReading[] = Array.from({ length: 6 }, (_, i) => ({
+    measuredAt: T0 + 3 * HOUR + i * 1000,
+    voltage: 13.1,
+    current: 2,
+    temperature: 10,
+  }));
+  await repository.insertBatch(rowsOf(systemId, [readings[1], readings[4]]));
+  const stored = await repository.insertBatch(rowsOf(systemId, readings));
+  expect(stored.map((r) => r.reading.measuredAt)).toEqual([0, 2, 3, 5].map((i) => readings[i].measuredAt));
+});
