@@ -65,3 +65,26 @@ export function cpuMeter(parties: Record<string, { pid: number; withChildren?: b
 export function postmasterPid(dataDirectory: string): number {
   return Number(readFileSync(`${dataDirectory}/postmaster.pid`, 'utf8').split('\n')[0]);
 }
+
+/** The whole machine's busy CPU time (all cores, every process), from the first line of /proc/stat. */
+function machineBusyMs(): number {
+  // cpu  user nice system idle iowait irq softirq steal …, in clock ticks; idle and iowait are not busy.
+  const [user, nice, system, , , irq, softirq, steal] = readFileSync('/proc/stat', 'utf8')
+    .split('\n')[0]
+    .trim()
+    .split(/\s+/)
+    .slice(1, 9)
+    .map(Number);
+  return (user + nice + system + irq + softirq + steal) * TICK_MS;
+}
+
+/**
+ * How many cores the whole machine kept busy while `work` ran: for a ceiling whose clients come and go
+ * (their PostgreSQL backends exit before a per-process sample could count them).
+ */
+export async function coresBusyDuring<T>(work: () => Promise<T>): Promise<{ result: T; cores: number }> {
+  const busyBefore = machineBusyMs();
+  const started = performance.now();
+  const result = await work();
+  return { result, cores: (machineBusyMs() - busyBefore) / (performance.now() - started) };
+}
