@@ -70,6 +70,23 @@ it('gathers what arrives during a write into the next batch, no larger than the 
   expect(writes.map((w) => w.rows.map((r) => r.reading.measuredAt))).toEqual([[1], [2, 3, 4, 5], [6, 7]]);
 });
 
+it('acknowledges a pack split over two batches only once both are committed', async () => {
+  const { repository, writes } = heldRepository();
+  const { writer } = writerOver(repository, { batchSize: 3, lanes: 1 });
+  let acknowledged = false;
+  const written = writer.write(rowsOf('a', [1, 2, 3, 4, 5])).then(() => (acknowledged = true));
+  await jest.advanceTimersByTimeAsync(0);
+  writes[0].done();
+  await jest.advanceTimersByTimeAsync(0);
+  expect({ batches: writes.map((w) => w.rows.length), acknowledged }).toEqual({
+    batches: [3, 2],
+    acknowledged: false,
+  });
+  writes[1].done();
+  await written;
+  expect(writer.queued).toBe(0);
+});
+
 it('writes different systems concurrently but keeps each system in order', async () => {
   const { repository, writes } = heldRepository();
   const { writer } = writerOver(repository, { lanes: 2 });

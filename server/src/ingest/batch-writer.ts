@@ -1,14 +1,19 @@
 import type { Logger } from '../logger';
 import type { ReadingRow, ReadingsRepository } from '../telemetry/readings-repository';
 
-interface Pending {
-  row: ReadingRow;
-  settle: (error?: Error) => void;
+/** One caller's rows (a pack, usually): its promise settles once every row is committed, or at the first failure. */
+interface Ticket {
+  left: number;
+  settled: boolean;
+  resolve: () => void;
+  reject: (error: Error) => void;
 }
 
 /** One system's readings always go through the same lane, so they are stored in the order they came. */
 interface Lane {
-  queue: Pending[];
+  /** The rows waiting, and beside each the ticket of the caller it came from (no object per reading). */
+  queue: ReadingRow[];
+  tickets: Ticket[];
   flushing: boolean;
   kicked: boolean;
   retryTimer?: NodeJS.Timeout;
@@ -51,6 +56,7 @@ export function createBatchWriter(deps: {
 }) {
   const lanes: Lane[] = Array.from({ length: deps.lanes ?? 2 }, () => ({
     queue: [],
+    tickets: [],
     flushing: false,
     kicked: false,
     retryDelayMs: deps.retryMs,
@@ -72,18 +78,20 @@ export function createBatchWriter(deps: {
     if (closed || lane.flushing || lane.queue.length === 0) return;
     lane.flushing = true;
     const batch = lane.queue.slice(0, deps.batchSize);
+    const tickets = lane.tickets.slice(0, batch.length);
     let failed = false;
     try {
-      const stored = await deps.repository.insertBatch(batch.map((p) => p.row));
+      const stored = await deps.repository.insertBatch(batch);
       // After close() the queue was emptied (and its callers told) already.
       if (!closed) {
         lane.queue.splice(0, batch.length);
+        lane.tickets.splice(0, batch.length);
         queued -= batch.length;
       }
       lane.retryDelayMs = deps.retryMs;
       // Only newly stored readings go live: a redelivered duplicate must not be announced (or flagged) twice.
       if (stored.length > 0) announce(stored);
-      for (const p of batch) p.settle();
+      for (const ticket of tickets) settle(ticket);
     } catch (error) {
       failed = true;
       deps.logger.warn('reading batch not stored yet; will retry', {
@@ -97,6 +105,17 @@ export function createBatchWriter(deps: {
     if (!failed) return kick(lane);
     lane.retryTimer = setTimeout(() => void flush(lane), lane.retryDelayMs);
     lane.retryDelayMs = Math.min(lane.retryDelayMs * 2, MAX_RETRY_DELAY_MS);
+  }
+
+  function settle(ticket: Ticket, error?: Error) {
+    if (ticket.settled) return;
+    if (error) {
+      ticket.settled = true;
+      ticket.reject(error);
+    } else if (--ticket.left === 0) {
+      ticket.settled = true;
+      ticket.resolve();
+    }
   }
 
   function announce(stored: readonly ReadingRow[]) {
@@ -114,15 +133,23 @@ export function createBatchWriter(deps: {
       if (queued + rows.length > deps.queueLimit) {
         return Promise.reject(new IngestQueueFullError(`ingest queue full (${queued} readings waiting)`));
       }
-      const settled = rows.map((row) => {
-        const lane = lanes[laneIndex(row.systemId, lanes.length)];
-        return new Promise<void>((resolve, reject) => {
-          lane.queue.push({ row, settle: (error) => (error ? reject(error) : resolve()) });
+      if (rows.length === 0) return Promise.resolve();
+      // One promise per caller, not one per reading; a pack's rows are of one system, so one lane is looked up.
+      return new Promise<void>((resolve, reject) => {
+        const ticket: Ticket = { left: rows.length, settled: false, resolve, reject };
+        let systemId: string | undefined;
+        let lane = lanes[0];
+        for (const row of rows) {
+          if (row.systemId !== systemId) {
+            systemId = row.systemId;
+            lane = lanes[laneIndex(systemId, lanes.length)];
+          }
+          lane.queue.push(row);
+          lane.tickets.push(ticket);
           queued++;
           kick(lane);
-        });
+        }
       });
-      return Promise.all(settled).then(() => undefined);
     },
     get queued() {
       return queued;
@@ -132,7 +159,9 @@ export function createBatchWriter(deps: {
       closed = true;
       for (const lane of lanes) {
         if (lane.retryTimer) clearTimeout(lane.retryTimer);
-        for (const p of lane.queue.splice(0)) p.settle(new Error('ingest stopped'));
+        const stopped = new Error('ingest stopped');
+        lane.queue.length = 0;
+        for (const ticket of lane.tickets.splice(0)) settle(ticket, stopped);
       }
       queued = 0;
     },
