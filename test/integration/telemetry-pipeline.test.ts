@@ -128,7 +128,10 @@ it('streams live readings to a subscriber of a system it may see, and nothing of
           `bearer.${token}`,
         ]);
         const messages: { type: string }[] = [];
-        socket.on('message', (data) => messages.push(JSON.parse(data.toString())));
+        // The dashboard reads text frames only.
+        socket.on('message', (data, isBinary) =>
+          messages.push(isBinary ? { type: 'binary' } : JSON.parse(data.toString())),
+        );
         socket.on('open', () => {
           socket.send(JSON.stringify({ type: 'subscribe', systemIds: [cabinId] }));
           resolve({ socket, messages });
@@ -137,6 +140,8 @@ it('streams live readings to a subscriber of a system it may see, and nothing of
       },
     );
   const owner = await open(ownerToken);
+  // A second tab of the same person: each reading is serialised once and sent to both.
+  const ownerAgain = await open(ownerToken);
   const stranger = await open(supportSignIn.body.accessToken);
   const until = async (check: () => boolean) => {
     for (let i = 0; i < 100 && !check(); i++) await new Promise((r) => setTimeout(r, 50));
@@ -151,10 +156,16 @@ it('streams live readings to a subscriber of a system it may see, and nothing of
   );
   await client.endAsync();
   await until(() => owner.messages.some((m) => m.type === 'reading'));
+  await until(() => ownerAgain.messages.some((m) => m.type === 'reading'));
   expect(owner.messages.find((m) => m.type === 'reading')?.systemId).toBe(cabinId);
+  expect(ownerAgain.messages.filter((m) => m.type === 'reading')).toEqual(
+    owner.messages.filter((m) => m.type === 'reading'),
+  );
+  expect(owner.messages.some((m) => m.type === 'binary')).toBe(false);
   expect(stranger.messages.find((m) => m.type === 'subscribed')?.systemIds).toEqual([]);
   expect(stranger.messages.some((m) => m.type === 'reading')).toBe(false);
   owner.socket.close();
+  ownerAgain.socket.close();
   stranger.socket.close();
 });
 

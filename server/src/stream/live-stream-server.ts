@@ -194,6 +194,8 @@ export function attachLiveStream(deps: {
 
   const unsubscribe = deps.hub.subscribe(({ systemId, message }) => {
     const now = deps.now();
+    // Serialised once for every subscriber (and only if there is one), not once per socket.
+    let frame: Buffer | undefined;
     for (const client of clients) {
       const validUntil = client.subscriptions.get(systemId);
       if (validUntil === undefined) continue;
@@ -205,7 +207,9 @@ export function attachLiveStream(deps: {
       }
       // A slow client loses readings rather than slowing everyone else down.
       if (client.socket.bufferedAmount > SLOW_CLIENT_BYTES) continue;
-      send(client, message);
+      if (client.socket.readyState !== client.socket.OPEN) continue;
+      frame ??= Buffer.from(JSON.stringify(message));
+      client.socket.send(frame, { binary: false });
     }
   });
 
