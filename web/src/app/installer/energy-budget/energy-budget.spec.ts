@@ -148,7 +148,7 @@ describe('EnergyBudgetEditor', () => {
     await fixture.whenStable();
     const canvas: HTMLCanvasElement = fixture.nativeElement.querySelector('canvas');
     expect(canvas.getAttribute('aria-label')).toBe(
-      'Energy stored 634 Wh a day, energy out 432 Wh a day: 202 Wh to spare.',
+      'Chart of the daily energy budget. Energy stored 634 Wh a day, energy out 432 Wh a day: 202 Wh to spare.',
     );
     expect(fixture.nativeElement.querySelector('table.cw-visually-hidden').textContent).toContain('640 Wh');
   });

@@ -17,7 +17,6 @@ import {
   energyBudget,
 } from '@cellwarden/shared';
 import type { ChartConfiguration } from 'chart.js';
-import { BaseChartDirective } from 'ng2-charts';
 import { provideChartSetup } from '../../core/chart-setup';
 import { map, startWith } from 'rxjs';
 import { Findings } from '../findings/findings';
@@ -32,6 +31,8 @@ const num = (value: number, min: number, max: number) => [
 ];
 
 /** The energy budget editor: load and source rows, the battery system, and the daily balance live. */
+import { ChartFigure } from '../../core/chart-figure/chart-figure';
+
 @Component({
   selector: 'cw-energy-budget',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -45,7 +46,7 @@ const num = (value: number, min: number, max: number) => [
     MatButtonModule,
     MatIconModule,
     DecimalPipe,
-    BaseChartDirective,
+    ChartFigure,
     Findings,
     WireFuse,
     BudgetComparison,

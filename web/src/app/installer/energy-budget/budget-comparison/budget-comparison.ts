@@ -17,7 +17,6 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import type { EnergyBudgetComparison, EnergyBudgetInput, SavedEnergyBudget } from '@cellwarden/shared';
 import type { ChartConfiguration } from 'chart.js';
-import { BaseChartDirective } from 'ng2-charts';
 import { combineLatest, of, switchMap } from 'rxjs';
 import { LoadState, loadedOr, toLoadState } from '../../../core/load-state';
 import { Api } from '../../../core/api';
@@ -30,6 +29,8 @@ import { toComparisonChart } from './to-comparison-chart';
  * The budget saved for a system against what the system measured over the last week: a chart per day, the
  * figures per day and the gap in words. Saving the editor's budget for a system is offered here too.
  */
+import { ChartFigure } from '../../../core/chart-figure/chart-figure';
+
 @Component({
   selector: 'cw-budget-comparison',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -41,7 +42,7 @@ import { toComparisonChart } from './to-comparison-chart';
     MatInputModule,
     MatSelectModule,
     MatTableModule,
-    BaseChartDirective,
+    ChartFigure,
   ],
   templateUrl: './budget-comparison.html',
   styleUrl: './budget-comparison.scss',
