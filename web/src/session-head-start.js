@@ -8,6 +8,8 @@
 // values at once as a first glance outside Angular's root; the live view removes it once its own tiles show
 // (live/first-glance.ts). Angular cannot set up the shell and the view that fast on a small machine.
 // Public pages (sign-in, invitation, password reset) do not renew: none of them asks for a session.
+// index.html names it in its head and the build copies it unhashed (a browser may keep it an hour): the globals
+// it sets (cwSessionHeadStart, cwStatusHeadStart, cwSystemHeadStart) must stay readable by older and newer apps.
 (function () {
   // The remembered theme (core/theme.ts keeps it) applies before the first paint, not when Angular starts.
   try {
