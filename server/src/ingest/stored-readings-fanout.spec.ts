@@ -2,7 +2,7 @@ import type { BatteryReading, DerivedState } from '@cellwarden/shared';
 import { createMemoryLogger } from '../logger';
 import type { LiveEvent } from '../telemetry/readings-hub';
 import type { ReadingRow } from '../telemetry/readings-repository';
-import { createStoredReadingsFanout } from './stored-readings-fanout';
+import { createStoredReadingsFanout, receivedReading } from './stored-readings-fanout';
 
 const RECEIVED = Date.UTC(2026, 11, 3, 12);
 const reading = (measuredAt: number): BatteryReading => ({
@@ -98,5 +98,29 @@ describe('stored readings fan-out', () => {
     await settle();
     expect(published).toHaveLength(1);
     expect(logger.entries.map((e) => e.message)).toContain('last seen not updated');
+  });
+});
+
+describe('receivedReading', () => {
+  it('carries every field of the reading, with its arrival and monitor', () => {
+    const full: Required<BatteryReading> = {
+      measuredAt: 1,
+      voltage: 13.1,
+      current: -2.5,
+      temperature: 10.5,
+      stateOfCharge: 64.5,
+      power: -32.75,
+      sourceCurrents: { solar: 3.5, dcdc: 0 },
+    };
+    expect(receivedReading({ systemId: 'a', deviceId: 'm1', reading: full }, RECEIVED)).toEqual({
+      ...full,
+      receivedAt: RECEIVED,
+      deviceId: 'm1',
+    });
+    expect(receivedReading(row('a', 'm1', 2), RECEIVED)).toEqual({
+      ...reading(2),
+      receivedAt: RECEIVED,
+      deviceId: 'm1',
+    });
   });
 });

@@ -56,19 +56,23 @@ export function stepFlagTrack(
       severity: signal.trigger,
       peak: signal.value,
       unit: signal.unit,
-      ...(signal.sourceId === undefined ? {} : { sourceId: signal.sourceId }),
     };
+    if (signal.sourceId !== undefined) started.sourceId = signal.sourceId;
     return stepPending(kind, started, signal, at, minimumDurationMs);
   }
   if (!signal.holds) {
     if (track.phase !== 'active') return STAYS_OFF;
     // A short lapse (a heater's start-up surge pulling the net current negative) does not end the flag.
     const releasingSince = track.releasingSince ?? at;
-    if (at - releasingSince < releaseDelayMs) return { track: { ...track, releasingSince }, events: [] };
+    if (at - releasingSince < releaseDelayMs) {
+      const releasing = copyTrack(track, true, true);
+      releasing.releasingSince = releasingSince;
+      return { track: releasing, events: [] };
+    }
     return { track: undefined, events: [eventOf(kind, 'end', track, signal, at)] };
   }
-  const updated: FlagTrack = { ...track, peak: worseOf(track.peak, signal.value, signal.worse) };
-  delete updated.releasingSince;
+  const updated = copyTrack(track, true, false);
+  updated.peak = worseOf(track.peak, signal.value, signal.worse);
   if (signal.sourceId !== undefined) updated.sourceId = signal.sourceId;
   if (updated.phase === 'pending') return stepPending(kind, updated, signal, at, minimumDurationMs);
   return stepEscalation(kind, updated, signal, at, minimumDurationMs);
@@ -93,9 +97,11 @@ function stepPending(
   minimumDurationMs: number,
 ): { track: FlagTrack; events: FlagEvent[] } {
   const severity = signal.trigger === 'critical' ? 'critical' : track.severity;
-  const pending: FlagTrack = { ...track, severity };
+  const pending = copyTrack(track, true, true);
+  pending.severity = severity;
   if (at - pending.since < minimumDurationMs) return { track: pending, events: [] };
-  const active: FlagTrack = { ...pending, phase: 'active' };
+  const active = copyTrack(pending, true, true);
+  active.phase = 'active';
   return { track: active, events: [eventOf(kind, 'start', active, signal, at)] };
 }
 
@@ -107,15 +113,35 @@ function stepEscalation(
   minimumDurationMs: number,
 ): { track: FlagTrack; events: FlagEvent[] } {
   if (track.severity === 'critical' || signal.trigger !== 'critical') {
-    const steady = { ...track };
-    delete steady.escalatingSince;
-    return { track: steady, events: [] };
+    return { track: copyTrack(track, false, true), events: [] };
   }
   const escalatingSince = track.escalatingSince ?? at;
-  if (at - escalatingSince < minimumDurationMs) return { track: { ...track, escalatingSince }, events: [] };
-  const escalated: FlagTrack = { ...track, severity: 'critical' };
-  delete escalated.escalatingSince;
+  if (at - escalatingSince < minimumDurationMs) {
+    const escalating = copyTrack(track, true, true);
+    escalating.escalatingSince = escalatingSince;
+    return { track: escalating, events: [] };
+  }
+  const escalated = copyTrack(track, false, true);
+  escalated.severity = 'critical';
   return { track: escalated, events: [eventOf(kind, 'escalate', escalated, signal, at)] };
+}
+
+/**
+ * A track copied field by field, with or without its escalation and release timers: runs on every reading while a
+ * flag is on, and V8 copies an object holding fractional numbers through its slow path when spread (`{ ...track }`).
+ */
+function copyTrack(track: FlagTrack, keepEscalating: boolean, keepReleasing: boolean): FlagTrack {
+  const copy: FlagTrack = {
+    phase: track.phase,
+    since: track.since,
+    severity: track.severity,
+    peak: track.peak,
+    unit: track.unit,
+  };
+  if (keepEscalating && track.escalatingSince !== undefined) copy.escalatingSince = track.escalatingSince;
+  if (keepReleasing && track.releasingSince !== undefined) copy.releasingSince = track.releasingSince;
+  if (track.sourceId !== undefined) copy.sourceId = track.sourceId;
+  return copy;
 }
 
 function eventOf(
