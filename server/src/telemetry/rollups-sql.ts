@@ -25,11 +25,11 @@ const METRICS = ['voltage', 'current', 'temperature'] as const;
 // microsecond for any date this product stores, since float8 carries 15–16 significant digits.
 const NEW_ROWS = `incoming AS (
   SELECT system_id, to_timestamp(measured_ms / 1000.0) AS measured_at, device_id, voltage, current, temperature,
-    state_of_charge, power, source_currents, received_at
+    state_of_charge, power, source_currents, $10::timestamptz AS received_at
   FROM unnest($1::uuid[], $2::float8[], $3::text[], $4::float8[], $5::float8[], $6::float8[],
-    $7::float8[], $8::float8[], $9::text[], $10::timestamptz[])
+    $7::float8[], $8::float8[], $9::text[])
     AS t(system_id, measured_ms, device_id, voltage, current, temperature, state_of_charge, power,
-      source_currents, received_at)
+      source_currents)
 ), stored AS (
   INSERT INTO readings (system_id, measured_at, device_id, voltage, current, temperature, state_of_charge,
     power, source_currents, received_at)
@@ -179,8 +179,9 @@ ${changes}_new AS (
 )`;
 
 /**
- * Stores a batch bound as ten parallel arrays (system, measured time in epoch ms, device, voltage, current, temperature,
- * state of charge, power, source currents as JSON text, received time) and updates both rollups from the
+ * Stores a batch bound as nine parallel arrays (system, measured time in epoch ms, device, voltage, current, temperature,
+ * state of charge, power, source currents as JSON text) and the batch's received time ($10, one for all its rows:
+ * not 500 copies of one timestamp to write and parse), and updates both rollups from the
  * rows that were new; returns one row: how many were new and, only when some were not, their keys (system, measured
  * time in epoch ms, device) as three arrays. Every row of a batch is usually new, and a row per reading (a uuid,
  * a timestamp and a text to parse each) was then read for nothing. $11 and $12 bound the neighbour lookups (the batch's
