@@ -1,4 +1,5 @@
-import { Aedes, type AedesOptions } from 'aedes';
+import { Aedes, type AedesOptions, type Client, type PublishPacket } from 'aedes';
+import { deviceIdFromReadingsTopic } from '@cellwarden/shared';
 import { createServer, type AddressInfo, type Server } from 'node:net';
 import type { Logger } from '../logger';
 import type { createBrokerPolicy } from './broker-policy';
@@ -33,6 +34,7 @@ export async function startMqttBroker(options: {
     ...stores,
     heartbeatInterval: 30000,
   });
+  skipRoutingOfReadings(broker);
   broker.on('clientError', (client, error) =>
     options.logger.debug('mqtt client error', { clientId: client.id, error: error.message }),
   );
@@ -58,5 +60,25 @@ export async function startMqttBroker(options: {
       await new Promise<void>((resolve) => broker.close(() => resolve()));
       await new Promise<void>((resolve) => server.close(() => resolve()));
     },
+  };
+}
+
+type Publish = (packet: PublishPacket, client: Client | null, done?: (error?: Error | null) => void) => void;
+
+/**
+ * A device's readings are stored by `authorizePublish`, before aedes writes the PUBACK, and nobody receives them
+ * over MQTT: devices may not subscribe (every SUBSCRIBE is refused) and the server consumes nothing through the
+ * broker. aedes still routed each acknowledged publish (a packet copy, a match against the persisted
+ * subscriptions, the emitter, a retained copy when flagged) for nobody; a device's publish to its readings topic
+ * now ends once stored and acknowledged. Everything else ($SYS, wills) is routed as before.
+ */
+export function skipRoutingOfReadings(broker: Aedes): void {
+  const instance = broker as unknown as { publish: Publish };
+  const route = instance.publish.bind(broker) as Publish;
+  instance.publish = (packet, client, done) => {
+    // aedes also takes (packet, done) from its own $SYS publishes: those go on unchanged.
+    if (client && typeof client === 'object' && deviceIdFromReadingsTopic(packet.topic) !== undefined)
+      return done?.(null);
+    route(packet, client, done);
   };
 }
